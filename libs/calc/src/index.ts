@@ -1,1 +1,13 @@
-export {};
+/**
+ * @skyhours/calc — every number of SCIENCE.md, shared by the browser (live previews) and the
+ * server (validation). Pure functions: no clock, no randomness, SI inside, units in every name.
+ *
+ * The formula functions assume physically valid arguments; `evaluateObservation` is the
+ * validated entry point for a whole observation.
+ */
+export * from './constants.js';
+export * from './errors.js';
+export * from './geometry.js';
+export * from './line.js';
+export * from './sensitivity.js';
+export * from './sky.js';
