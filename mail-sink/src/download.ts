@@ -4,7 +4,10 @@
  */
 export function contentDisposition(kind: 'attachment' | 'inline', filename: string): string {
   const base = filename.split(/[/\\]/).pop() ?? '';
-  const clean = base.replace(/[\u0000-\u001f\u007f]/g, '').trim();
+  const clean = [...base]
+    .filter((char) => char >= ' ' && char !== '\u007f')
+    .join('')
+    .trim();
   const name = clean === '' || clean === '.' || clean === '..' ? 'download' : clean;
   const fallback = name.replace(/[^A-Za-z0-9 ._()+-]/g, '_');
   const encoded = encodeURIComponent(name).replace(

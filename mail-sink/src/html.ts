@@ -1,4 +1,4 @@
-/** Markup that is already safe to place in a page; anything else interpolated into `html` is escaped. */
+/** Markup that is already safe to place in a page; anything else interpolated into `markup` is escaped. */
 export class SafeHtml {
   constructor(readonly value: string) {}
 
@@ -22,7 +22,7 @@ export function escapeHtml(text: string): string {
 }
 
 /** Template tag: every interpolated value is escaped unless it is SafeHtml (or a list of parts). */
-export function html(strings: TemplateStringsArray, ...values: HtmlPart[]): SafeHtml {
+export function markup(strings: TemplateStringsArray, ...values: HtmlPart[]): SafeHtml {
   let out = strings[0] ?? '';
   values.forEach((value, index) => {
     out += renderPart(value) + (strings[index + 1] ?? '');

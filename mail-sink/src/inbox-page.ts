@@ -1,4 +1,4 @@
-import { html, SafeHtml, type HtmlPart } from './html.js';
+import { markup, SafeHtml, type HtmlPart } from './html.js';
 import { INBOX_SCRIPT } from './inbox-script.js';
 import { INBOX_STYLES } from './inbox-styles.js';
 import type { MessageSummary, StoredMessage } from './types.js';
@@ -22,7 +22,7 @@ const STYLES = new SafeHtml(INBOX_STYLES);
 export function renderInboxPage(model: InboxPageModel): string {
   const { messages, total, filterTo, selected, nonce } = model;
   const title = total === 0 ? 'Skyhours mail sink' : `(${total}) Skyhours mail sink`;
-  return html`<!doctype html>
+  return markup`<!doctype html>
 <html lang="en">
 <head>
 <meta charset="utf-8">
@@ -40,7 +40,7 @@ export function renderInboxPage(model: InboxPageModel): string {
     <label for="filter-to">Recipient</label>
     <input id="filter-to" name="to" type="search" value="${filterTo}" placeholder="someone@skyhours.test" autocomplete="off">
     <button type="submit">Filter</button>
-    ${filterTo ? html`<a href="/">Show all</a>` : ''}
+    ${filterTo ? markup`<a href="/">Show all</a>` : ''}
   </form>
   <button type="button" id="empty-inbox" class="danger" hidden>Empty inbox</button>
 </header>
@@ -82,19 +82,19 @@ function renderList(model: InboxPageModel): SafeHtml {
   const { messages, filterTo, selected } = model;
   const signature = messages.map((message) => message.id).join(',');
   if (messages.length === 0) {
-    return html`<div id="message-list" data-signature="">
+    return markup`<div id="message-list" data-signature="">
       <div class="empty">
         <strong>${filterTo ? `No messages to ${filterTo}` : 'No messages yet'}</strong>
         <p>Mail sent to SMTP <code>${model.smtpAddress}</code> shows up here.</p>
       </div>
     </div>`;
   }
-  return html`<div id="message-list" data-signature="${signature}">
+  return markup`<div id="message-list" data-signature="${signature}">
     <ol class="messages">
       ${messages.map(
-        (message) => html`<li>
+        (message) => markup`<li>
         <a class="item" href="${messageHref(message.id, filterTo)}" data-id="${message.id}"${
-          selected?.id === message.id ? html` aria-current="page"` : ''
+          selected?.id === message.id ? markup` aria-current="page"` : ''
         }>
           <span class="item-top"><span class="item-from">${message.from || '(no sender)'}</span>${time(message.date, 'short')}</span>
           <span class="item-subject">${message.subject || '(no subject)'}</span>
@@ -108,22 +108,22 @@ function renderList(model: InboxPageModel): SafeHtml {
 
 function renderPlaceholder(model: InboxPageModel): SafeHtml {
   if (model.missingId) {
-    return html`<p class="notice">Message <code>${model.missingId}</code> is not in the inbox; it may have been deleted.</p>`;
+    return markup`<p class="notice">Message <code>${model.missingId}</code> is not in the inbox; it may have been deleted.</p>`;
   }
-  return html`<p class="placeholder">${
+  return markup`<p class="placeholder">${
     model.messages.length > 0 ? 'Choose a message to read it.' : 'Nothing to read yet.'
   }</p>`;
 }
 
 function renderMessage(message: StoredMessage): SafeHtml {
   const base = `/api/messages/${message.id}`;
-  return html`<article aria-labelledby="message-subject">
+  return markup`<article aria-labelledby="message-subject">
     <h2 id="message-subject">${message.subject || '(no subject)'}</h2>
     <dl class="meta">
       <dt>From</dt><dd>${message.fromText || message.from || '(no sender)'}</dd>
       <dt>To</dt><dd>${message.to.join(', ') || '(none)'}</dd>
-      ${message.cc.length > 0 ? html`<dt>Cc</dt><dd>${message.cc.join(', ')}</dd>` : ''}
-      ${message.replyTo.length > 0 ? html`<dt>Reply-To</dt><dd>${message.replyTo.join(', ')}</dd>` : ''}
+      ${message.cc.length > 0 ? markup`<dt>Cc</dt><dd>${message.cc.join(', ')}</dd>` : ''}
+      ${message.replyTo.length > 0 ? markup`<dt>Reply-To</dt><dd>${message.replyTo.join(', ')}</dd>` : ''}
       <dt>Date</dt><dd>${time(message.date, 'long')}</dd>
       <dt>Received</dt><dd>${time(message.receivedAt, 'long')}</dd>
       <dt>Envelope</dt><dd>from ${message.envelope.mailFrom ?? '(null sender)'} to ${message.envelope.rcptTo.join(', ')}</dd>
@@ -136,7 +136,7 @@ function renderMessage(message: StoredMessage): SafeHtml {
     ${message.attachments.length > 0 ? renderAttachments(message) : ''}
     ${
       message.html !== null
-        ? html`<h3>HTML part</h3>
+        ? markup`<h3>HTML part</h3>
     <iframe class="html-part" title="HTML part of the message"
       sandbox="allow-popups allow-popups-to-escape-sandbox" referrerpolicy="no-referrer"
       srcdoc="${htmlPartDocument(message.html)}"></iframe>`
@@ -145,21 +145,21 @@ function renderMessage(message: StoredMessage): SafeHtml {
     <h3>Text part</h3>
     ${
       message.text !== null && message.text !== ''
-        ? html`<pre class="text-part">${linkify(message.text)}</pre>`
-        : html`<p class="placeholder">This message has no text part.</p>`
+        ? markup`<pre class="text-part">${linkify(message.text)}</pre>`
+        : markup`<p class="placeholder">This message has no text part.</p>`
     }
     <details>
       <summary>All headers (${message.headers.length})</summary>
-      <pre class="headers">${message.headers.map((header) => html`<b>${header.name}:</b> ${header.value}\n`)}</pre>
+      <pre class="headers">${message.headers.map((header) => markup`<b>${header.name}:</b> ${header.value}\n`)}</pre>
     </details>
   </article>`;
 }
 
 function renderAttachments(message: StoredMessage): SafeHtml {
-  return html`<h3>Attachments</h3>
+  return markup`<h3>Attachments</h3>
     <ul class="attachments">
       ${message.attachments.map(
-        (attachment, index) => html`<li>
+        (attachment, index) => markup`<li>
         <a href="/api/messages/${message.id}/attachments/${index}">${attachment.filename}</a>
         <span>${attachment.contentType}, ${formatBytes(attachment.size)}</span>
       </li>`,
@@ -186,8 +186,11 @@ function time(iso: string, format: 'short' | 'long'): SafeHtml {
   const date = new Date(iso);
   const utc = Number.isNaN(date.getTime())
     ? iso
-    : `${date.toISOString().slice(0, format === 'long' ? 19 : 16).replace('T', ' ')} UTC`;
-  return html`<time datetime="${iso}" data-format="${format}" title="${utc}">${utc}</time>`;
+    : `${date
+        .toISOString()
+        .slice(0, format === 'long' ? 19 : 16)
+        .replace('T', ' ')} UTC`;
+  return markup`<time datetime="${iso}" data-format="${format}" title="${utc}">${utc}</time>`;
 }
 
 function formatBytes(bytes: number): string {
@@ -203,7 +206,9 @@ function linkify(text: string): HtmlPart[] {
   for (const match of text.matchAll(/https?:\/\/[^\s<>"']+[^\s<>"'.,;:!?)\]]/g)) {
     const start = match.index;
     parts.push(text.slice(last, start));
-    parts.push(html`<a href="${match[0]}" target="_blank" rel="noopener noreferrer">${match[0]}</a>`);
+    parts.push(
+      markup`<a href="${match[0]}" target="_blank" rel="noopener noreferrer">${match[0]}</a>`,
+    );
     last = start + match[0].length;
   }
   parts.push(text.slice(last));

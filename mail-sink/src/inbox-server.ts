@@ -29,7 +29,11 @@ interface Route {
   methods: Partial<Record<string, Handler>>;
 }
 
-export function createInboxServer({ store, smtpAddress, onError }: InboxServerOptions): http.Server {
+export function createInboxServer({
+  store,
+  smtpAddress,
+  onError,
+}: InboxServerOptions): http.Server {
   const findMessage = (id: string | undefined): StoredMessage => {
     const message = id !== undefined && isMessageId(id) ? store.get(id) : undefined;
     if (!message) throw new HttpError(404, `No message with id ${id ?? ''}`);

@@ -13,7 +13,10 @@ export interface SmtpListener {
 }
 
 /** Accepts everything from anyone: it is a sink for development, bound to a local address. */
-export function createSmtpListener(store: MessageStore, options: SmtpListenerOptions): SmtpListener {
+export function createSmtpListener(
+  store: MessageStore,
+  options: SmtpListenerOptions,
+): SmtpListener {
   const inFlight = new Set<Promise<void>>();
 
   const server = new SMTPServer({
@@ -40,7 +43,10 @@ export function createSmtpListener(store: MessageStore, options: SmtpListenerOpt
   });
   server.on('error', options.onError);
 
-  async function receive(stream: SMTPServerDataStream, session: SMTPServerSession): Promise<string> {
+  async function receive(
+    stream: SMTPServerDataStream,
+    session: SMTPServerSession,
+  ): Promise<string> {
     const chunks: Buffer[] = [];
     for await (const chunk of stream) chunks.push(chunk as Buffer);
     if (stream.sizeExceeded) {

@@ -150,7 +150,12 @@ describe('the mail sink', () => {
       subject: 'cc to the Co-I',
       text: '.',
     });
-    await send(sink, { to: 'chair@skyhours.test', bcc: 'audit@skyhours.test', subject: 'bcc', text: '.' });
+    await send(sink, {
+      to: 'chair@skyhours.test',
+      bcc: 'audit@skyhours.test',
+      subject: 'bcc',
+      text: '.',
+    });
 
     const subjects = async (query: string): Promise<string[]> =>
       (await getJson<MessageSummary[]>(sink, `/api/messages?${query}`)).map((m) => m.subject);
