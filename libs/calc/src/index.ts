@@ -11,3 +11,4 @@ export * from './geometry.js';
 export * from './line.js';
 export * from './sensitivity.js';
 export * from './sky.js';
+export * from './plots.js';
