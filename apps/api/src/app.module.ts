@@ -1,0 +1,33 @@
+import { Module } from '@nestjs/common';
+import { APP_FILTER, APP_GUARD } from '@nestjs/core';
+import { AuditModule } from './audit/audit.module.js';
+import { AuthModule } from './auth/auth.module.js';
+import { ErrorEnvelopeFilter } from './common/filters/error-envelope.filter.js';
+import { CsrfGuard } from './common/guards/csrf.guard.js';
+import { RolesGuard } from './common/guards/roles.guard.js';
+import { SessionAuthGuard } from './common/guards/session-auth.guard.js';
+import { ConfigModule } from './config/config.module.js';
+import { DatabaseModule } from './database/database.module.js';
+import { HealthModule } from './health/health.module.js';
+import { MailModule } from './mail/mail.module.js';
+import { UsersModule } from './users/users.module.js';
+
+@Module({
+  imports: [
+    ConfigModule,
+    DatabaseModule,
+    AuditModule,
+    MailModule,
+    UsersModule,
+    AuthModule,
+    HealthModule,
+  ],
+  providers: [
+    // Order matters: CSRF, then sign-in, then roles.
+    { provide: APP_GUARD, useClass: CsrfGuard },
+    { provide: APP_GUARD, useClass: SessionAuthGuard },
+    { provide: APP_GUARD, useClass: RolesGuard },
+    { provide: APP_FILTER, useClass: ErrorEnvelopeFilter },
+  ],
+})
+export class AppModule {}
