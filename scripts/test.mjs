@@ -2,7 +2,8 @@
 /**
  * `npm test`: lint, typecheck, build, then every suite against throwaway services — its own
  * PostgreSQL cluster and mail sink, removed afterwards — ending with one line
- * `N passed, N failed`. `npm test -- --only api-e2e,web` runs some suites; `--list` names them.
+ * `N passed, N failed`. `npm test -- --only api-e2e,web` runs some suites, `--filter auth` only the
+ * test files whose path contains "auth"; `--list` names the suites.
  */
 import { chmodSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -27,6 +28,8 @@ if (argv.includes('--list')) {
 const onlyArg = argv[argv.indexOf('--only') + 1];
 const only = argv.includes('--only') && onlyArg ? new Set(onlyArg.split(',')) : null;
 const wanted = (/** @type {string} */ name) => !only || only.has(name);
+/** `--filter text`: only test files whose path contains text (passed to jest and vitest). */
+const filter = argv.includes('--filter') ? argv[argv.indexOf('--filter') + 1] : undefined;
 
 const work = mkdtempSync(join(tmpdir(), 'skyhours-test-'));
 chmodSync(work, 0o755); // the postgres user must reach the cluster's folder
