@@ -4,10 +4,33 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
 import { DataSource } from 'typeorm';
 import { AppModule } from '../../src/app.module.js';
+import { Clock } from '../../src/common/clock.js';
 import { configureApp } from '../../src/configure-app.js';
+
+/** A clock the test can move; it runs on from wherever it was set. */
+export class TestClock extends Clock {
+  private offsetMs = 0;
+
+  override now(): Date {
+    return new Date(Date.now() + this.offsetMs);
+  }
+
+  set(to: Date | string): void {
+    this.offsetMs = new Date(to).getTime() - Date.now();
+  }
+
+  advance(ms: number): void {
+    this.offsetMs += ms;
+  }
+
+  reset(): void {
+    this.offsetMs = 0;
+  }
+}
 
 export interface TestApp {
   app: NestExpressApplication;
+  clock: TestClock;
   dataSource: DataSource;
   /** A fresh cookie-keeping client (one browser). */
   agent(): TestAgent;
@@ -22,7 +45,11 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
   const saved = { ...process.env };
   Object.assign(process.env, { OUTBOX_POLL_MS: '100', NODE_ENV: 'test' }, env);
   try {
-    const moduleRef = await Test.createTestingModule({ imports: [AppModule] }).compile();
+    const clock = new TestClock();
+    const moduleRef = await Test.createTestingModule({ imports: [AppModule] })
+      .overrideProvider(Clock)
+      .useValue(clock)
+      .compile();
     const app = moduleRef.createNestApplication<NestExpressApplication>({
       logger: ['error', 'warn'],
     });
@@ -31,6 +58,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     const dataSource = app.get(DataSource);
     return {
       app,
+      clock,
       dataSource,
       agent: () => new TestAgent(app),
       async close() {
