@@ -1,4 +1,6 @@
+import { once } from 'node:events';
 import { readdir, readFile, writeFile } from 'node:fs/promises';
+import net from 'node:net';
 import path from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { MailSink, MessageSummary, StoredMessage } from '../src/index.js';
@@ -252,5 +254,27 @@ describe('the size limit', () => {
     } finally {
       await small.close();
     }
+  });
+});
+
+describe('starting', () => {
+  async function freePort(): Promise<number> {
+    const server = net.createServer().listen(0, '127.0.0.1');
+    await once(server, 'listening');
+    const { port } = server.address() as net.AddressInfo;
+    server.close();
+    await once(server, 'close');
+    return port;
+  }
+
+  it('fails when the inbox port is taken and frees the SMTP port it had bound', async () => {
+    const smtpPort = await freePort();
+    await expect(startTestSink(dir, { smtpPort, inboxPort: sink.inboxPort })).rejects.toMatchObject(
+      { code: 'EADDRINUSE' },
+    );
+
+    const again = net.createServer().listen(smtpPort, '127.0.0.1');
+    await once(again, 'listening');
+    again.close();
   });
 });
