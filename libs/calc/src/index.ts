@@ -15,3 +15,4 @@ export * from './plots.js';
 export * from './sensitivity.js';
 export * from './sky.js';
 export * from './validation.js';
+export * from './coordinates.js';
