@@ -7,6 +7,8 @@ import type { StoredMessage } from './types.js';
 
 export interface InboxServerOptions {
   store: MessageStore;
+  /** The address the server is bound to. */
+  host: string;
   /** `host:port` of the SMTP side, shown on the page. */
   smtpAddress: string;
   onError: (error: Error) => void;
@@ -31,9 +33,11 @@ interface Route {
 
 export function createInboxServer({
   store,
+  host,
   smtpAddress,
   onError,
 }: InboxServerOptions): http.Server {
+  const checkHost = isLoopback(host);
   const findMessage = (id: string | undefined): StoredMessage => {
     const message = id !== undefined && isMessageId(id) ? store.get(id) : undefined;
     if (!message) throw new HttpError(404, `No message with id ${id ?? ''}`);
@@ -132,6 +136,11 @@ export function createInboxServer({
   return http.createServer((req, res) => {
     res.setHeader('Cache-Control', 'no-store');
     res.setHeader('X-Content-Type-Options', 'nosniff');
+    if (checkHost && !isLoopback(hostname(req.headers.host))) {
+      // A page elsewhere that points its own name at 127.0.0.1 must not read the mail.
+      sendError(res, 403, 'This mail sink answers only to localhost names');
+      return;
+    }
     handle(routes, req, res).catch((error: unknown) => {
       if (error instanceof HttpError) {
         sendError(res, error.statusCode, error.message);
@@ -163,6 +172,24 @@ async function handle(
     return;
   }
   throw new HttpError(404, `Nothing at ${url.pathname}`);
+}
+
+function isLoopback(name: string): boolean {
+  const host = name.toLowerCase().replace(/^\[|\]$/g, '');
+  return (
+    host === 'localhost' ||
+    host.endsWith('.localhost') ||
+    host === '::1' ||
+    /^127\.\d{1,3}\.\d{1,3}\.\d{1,3}$/.test(host)
+  );
+}
+
+/** The name part of a Host header: `127.0.0.1:3100` → `127.0.0.1`, `[::1]:3100` → `[::1]`. */
+function hostname(header: string | undefined): string {
+  if (!header) return '';
+  const bracket = /^(\[[^\]]*\])(?::\d+)?$/.exec(header);
+  if (bracket) return bracket[1] ?? '';
+  return header.replace(/:\d+$/, '');
 }
 
 function route(pattern: string, methods: Route['methods']): Route {

@@ -55,7 +55,12 @@ export async function startMailSink(options: MailSinkOptions): Promise<MailSink>
       smtp.server.close(resolve);
     });
 
-  const inbox = createInboxServer({ store, smtpAddress: `${urlHost(host)}:${smtpPort}`, onError });
+  const inbox = createInboxServer({
+    store,
+    host,
+    smtpAddress: `${urlHost(host)}:${smtpPort}`,
+    onError,
+  });
   let inboxPort: number;
   try {
     inboxPort = await listen(inbox, options.inboxPort ?? 3100, host);

@@ -1,5 +1,6 @@
 import { once } from 'node:events';
 import { readdir, readFile, writeFile } from 'node:fs/promises';
+import http from 'node:http';
 import net from 'node:net';
 import path from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
@@ -222,6 +223,30 @@ describe('the mail sink', () => {
       statusCode: 405,
       message: 'POST is not allowed on /api/messages',
     });
+  });
+
+  it('answers only to localhost names, so a rebound foreign name cannot read the mail', async () => {
+    const statusFor = (host: string): Promise<number> =>
+      new Promise((resolve, reject) => {
+        http
+          .get({
+            host: '127.0.0.1',
+            port: sink.inboxPort,
+            path: '/api/messages',
+            headers: { host },
+          })
+          .on('response', (response) => {
+            response.resume();
+            resolve(response.statusCode ?? 0);
+          })
+          .on('error', reject);
+      });
+
+    expect(await statusFor(`mail.attacker.example:${sink.inboxPort}`)).toBe(403);
+    expect(await statusFor('127.0.0.1.attacker.example')).toBe(403);
+    expect(await statusFor(`localhost:${sink.inboxPort}`)).toBe(200);
+    expect(await statusFor(`127.0.0.1:${sink.inboxPort}`)).toBe(200);
+    expect(await statusFor(`[::1]:${sink.inboxPort}`)).toBe(200);
   });
 
   it('reports its health with the number of messages', async () => {
