@@ -16,3 +16,4 @@ export * from './sensitivity.js';
 export * from './sky.js';
 export * from './validation.js';
 export * from './coordinates.js';
+export * from './scores.js';
