@@ -1,0 +1,4 @@
+import { useQuery } from '@tanstack/react-query';
+import { healthQueryOptions } from './api';
+
+export const useHealth = () => useQuery(healthQueryOptions());

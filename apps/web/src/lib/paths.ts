@@ -1,0 +1,22 @@
+/**
+ * Every screen's address, in one place, so that links, the navigation and the router cannot
+ * disagree. Features link to each other's screens through these, never through literals.
+ */
+export const paths = {
+  desk: '/',
+  calls: '/calls',
+  calculator: '/calculator',
+  proposals: '/proposals',
+  reviewing: '/reviewing',
+  standing: '/standing',
+  operations: '/operations',
+  accounts: '/accounts',
+  profile: '/profile',
+  signIn: '/sign-in',
+} as const;
+
+/** The sign-in screen, asked to come back to `next` (a path inside the app) afterwards. */
+export function signInHref(next?: string): string {
+  if (!next || next === paths.desk || next.startsWith(paths.signIn)) return paths.signIn;
+  return `${paths.signIn}?${new URLSearchParams({ next }).toString()}`;
+}
