@@ -21,7 +21,6 @@ import {
   integrationSForRms,
   sefdJy,
   totalTimeHours,
-  type RadiometerSetup,
 } from './sensitivity.js';
 import { lstWindow, maxElevationDeg } from './sky.js';
 import { validateObservationInput } from './validation.js';
@@ -78,23 +77,33 @@ export function evaluateObservation(input: ObservationInput): ObservationResult 
     apertureEfficiency: band.apertureEfficiency,
   });
   const sefd = sefdJy({ tsysK: band.tsysK, effectiveAreaM2: area });
-  const setup: RadiometerSetup = {
-    sefdJy: sefd,
-    correlatorEfficiency: array.correlatorEfficiency,
-    polarizations: input.polarizations,
-    antennas: array.antennas,
-    bandwidthHz: input.bandwidthMHz * 1e6,
-  };
+  // Object literals written out in full (no spreads) keep one shape per call site: this is the
+  // hot path of every live preview and every validation on the server.
+  const bandwidthHz = input.bandwidthMHz * 1e6;
   const onSourceHours = input.onSourceHours ?? null;
   const rmsGoalMicroJy = input.rmsGoalMicroJy ?? null;
   const rmsMicroJy =
     onSourceHours === null
       ? null
-      : imageRmsJy({ ...setup, integrationS: onSourceHours * 3600 }) * 1e6;
+      : imageRmsJy({
+          sefdJy: sefd,
+          correlatorEfficiency: array.correlatorEfficiency,
+          polarizations: input.polarizations,
+          antennas: array.antennas,
+          bandwidthHz,
+          integrationS: onSourceHours * 3600,
+        }) * 1e6;
   const onSourceHoursForGoal =
     rmsGoalMicroJy === null
       ? null
-      : integrationSForRms({ ...setup, rmsJy: rmsGoalMicroJy * 1e-6 }) / 3600;
+      : integrationSForRms({
+          sefdJy: sefd,
+          correlatorEfficiency: array.correlatorEfficiency,
+          polarizations: input.polarizations,
+          antennas: array.antennas,
+          bandwidthHz,
+          rmsJy: rmsGoalMicroJy * 1e-6,
+        }) / 3600;
 
   // The time asked and its rms: onSourceHours when given, else what the goal needs.
   const hoursAsked = onSourceHours ?? onSourceHoursForGoal;
@@ -116,13 +125,13 @@ export function evaluateObservation(input: ObservationInput): ObservationResult 
           beamFwhmArcsec: resolution,
         });
 
-  const site = {
+  const maxElevation = maxElevationDeg({ latitudeDeg: array.latitudeDeg, decDeg: target.decDeg });
+  const window = lstWindow({
     latitudeDeg: array.latitudeDeg,
     decDeg: target.decDeg,
     elevationLimitDeg: array.elevationLimitDeg,
-  };
-  const maxElevation = maxElevationDeg(site);
-  const window = lstWindow({ ...site, raDeg: target.raDeg });
+    raDeg: target.raDeg,
+  });
 
   const result: ObservationResult = {
     skyFrequencyGHz,

@@ -38,23 +38,30 @@ export interface RadiometerSetup {
   bandwidthHz: number;
 }
 
-/** The product n_pol · N(N−1) · Δν shared by the radiometer equation and its inverse. */
-function samplesPerSecond({ polarizations, antennas, bandwidthHz }: RadiometerSetup): number {
-  return polarizations * antennas * (antennas - 1) * bandwidthHz;
-}
-
 /** σ = SEFD / (η_c · √(n_pol · N(N−1) · Δν · t)), t the on-source time of one pointing. */
-export function imageRmsJy(setup: RadiometerSetup & { integrationS: number }): number {
-  return (
-    setup.sefdJy /
-    (setup.correlatorEfficiency * Math.sqrt(samplesPerSecond(setup) * setup.integrationS))
-  );
+export function imageRmsJy({
+  sefdJy,
+  correlatorEfficiency,
+  polarizations,
+  antennas,
+  bandwidthHz,
+  integrationS,
+}: RadiometerSetup & { integrationS: number }): number {
+  const samples = polarizations * antennas * (antennas - 1) * bandwidthHz * integrationS;
+  return sefdJy / (correlatorEfficiency * Math.sqrt(samples));
 }
 
 /** t = (SEFD / (η_c σ))² / (n_pol · N(N−1) · Δν): the on-source time that reaches rms σ. */
-export function integrationSForRms(setup: RadiometerSetup & { rmsJy: number }): number {
-  const ratio = setup.sefdJy / (setup.correlatorEfficiency * setup.rmsJy);
-  return (ratio * ratio) / samplesPerSecond(setup);
+export function integrationSForRms({
+  sefdJy,
+  correlatorEfficiency,
+  polarizations,
+  antennas,
+  bandwidthHz,
+  rmsJy,
+}: RadiometerSetup & { rmsJy: number }): number {
+  const ratio = sefdJy / (correlatorEfficiency * rmsJy);
+  return (ratio * ratio) / (polarizations * antennas * (antennas - 1) * bandwidthHz);
 }
 
 /** Total time asked: on-source time of one pointing · pointings · (1 + overhead). */
