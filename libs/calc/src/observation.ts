@@ -126,7 +126,7 @@ export function evaluateObservation(input: ObservationInput): ObservationResult 
         });
 
   const maxElevation = maxElevationDeg({ latitudeDeg: array.latitudeDeg, decDeg: target.decDeg });
-  const window = lstWindow({
+  const upWindow = lstWindow({
     latitudeDeg: array.latitudeDeg,
     decDeg: target.decDeg,
     elevationLimitDeg: array.elevationLimitDeg,
@@ -147,12 +147,12 @@ export function evaluateObservation(input: ObservationInput): ObservationResult 
     totalHours,
     brightnessRmsK,
     maxElevationDeg: maxElevation,
-    hoursAboveLimit: window.hoursAboveLimit,
-    lstRiseHours: window.lstRiseHours,
-    lstSetHours: window.lstSetHours,
+    hoursAboveLimit: upWindow.hoursAboveLimit,
+    lstRiseHours: upWindow.lstRiseHours,
+    lstSetHours: upWindow.lstSetHours,
     checks: [],
   };
-  result.checks = checkObservation(input, result, window.visibility === 'never-rises');
+  result.checks = checkObservation(input, result, upWindow.visibility === 'never-rises');
   return result;
 }
 

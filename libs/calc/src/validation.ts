@@ -95,6 +95,7 @@ function bound(x: number): string {
 function describe(rule: NumberRule): string {
   const unit = rule.unit;
   const kind = rule.integer ? 'a whole number' : 'a number';
+  if (rule.min === -Infinity && rule.max === Infinity) return kind;
   if (!rule.minOpen && !rule.maxOpen) {
     return `${kind} from ${bound(rule.min)}${unit} to ${bound(rule.max)}${unit}`;
   }

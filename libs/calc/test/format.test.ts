@@ -23,8 +23,8 @@ describe('formatNumber (the numbers in check messages)', () => {
   });
 
   it('agrees with toPrecision for values in [1e-3, 1e6)', () => {
-    for (let i = 0; i < 5000; i++) {
-      const x = 10 ** (-3 + (9 * i) / 5000) * (i % 2 ? 1 : -1);
+    for (let i = 0; i < 2000; i++) {
+      const x = 10 ** (-3 + (9 * i) / 2000) * (i % 2 ? 1 : -1);
       for (const digits of [3, 4, 6]) {
         const reference = Number(x.toPrecision(digits));
         // Whole digits are kept, so compare with toPrecision only where it keeps them too.

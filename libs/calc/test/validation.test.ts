@@ -145,6 +145,10 @@ describe('validateObservationInput', () => {
   it('puts the bounds and the bad value in the message', () => {
     const [issue] = validateObservationInput(withValue(valid, 'array.correlatorEfficiency', 1.2));
     expect(issue!.message).toBe('Must be a number from 0.001 to 1, got 1.2.');
+    const [velocity] = validateObservationInput(
+      line({ restGHz: 1.42, velocityKmS: 'fast', convention: 'radio' }),
+    );
+    expect(velocity!.message).toBe('Must be a number, got "fast".');
     const [dec] = validateObservationInput(withValue(valid, 'target.decDeg', 91));
     expect(dec!.message).toBe('Must be a number from -90° to 90°, got 91.');
   });
