@@ -1,19 +1,52 @@
-import { Body, Controller, Get, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
-import { ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Get, HttpCode, Patch, Post, Req, Res, UseGuards } from '@nestjs/common';
+import {
+  ApiAcceptedResponse,
+  ApiNoContentResponse,
+  ApiOkResponse,
+  ApiTags,
+  ApiTooManyRequestsResponse,
+} from '@nestjs/swagger';
 import type { Request, Response } from 'express';
+import { originOf } from '../audit/request-origin.js';
 import { CurrentUser } from '../common/decorators/current-user.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
 import { SignedIn } from '../common/decorators/signed-in.decorator.js';
+import { notFound } from '../common/errors/app-error.js';
+import { UpdateProfileDto } from '../users/dto/update-profile.dto.js';
+import { EmailVerificationService } from '../users/email-verification.service.js';
+import { UsersService } from '../users/users.service.js';
+import { AuthService } from './auth.service.js';
 import { csrf } from './csrf.js';
+import { AcceptedResponse } from './dto/accepted.response.js';
+import { ChangePasswordDto } from './dto/change-password.dto.js';
 import { LoginDto } from './dto/login.dto.js';
 import { MeResponse } from './dto/me.response.js';
+import { PasswordResetConfirmDto, PasswordResetRequestDto } from './dto/password-reset.dto.js';
+import { RegisterDto } from './dto/register.dto.js';
+import { TokenDto } from './dto/token.dto.js';
 import { LocalAuthGuard } from './local-auth.guard.js';
+import { PasswordResetService, RESET_ACCEPTED } from './password-reset.service.js';
+import { RateLimit } from './rate-limit/rate-limit.decorator.js';
+import { RATE_LIMITS } from './rate-limit/rate-limits.js';
+import { SignInLimiter } from './rate-limit/sign-in-limiter.js';
+import { REGISTRATION_ACCEPTED, RegistrationService } from './registration.service.js';
 import type { SessionUser } from './session-user.js';
 import { SESSION_COOKIE } from './session.js';
+import { invalidToken } from './token-errors.js';
 
 @ApiTags('auth')
+@ApiTooManyRequestsResponse({ description: 'Rate limited; see the Retry-After header' })
 @Controller('auth')
 export class AuthController {
+  constructor(
+    private readonly auth: AuthService,
+    private readonly registration: RegistrationService,
+    private readonly verification: EmailVerificationService,
+    private readonly reset: PasswordResetService,
+    private readonly users: UsersService,
+    private readonly limiter: SignInLimiter,
+  ) {}
+
   @Public()
   @Get('csrf')
   csrfToken(@Req() req: Request): { token: string } {
@@ -26,17 +59,20 @@ export class AuthController {
   @Post('login')
   @HttpCode(200)
   @ApiOkResponse({ type: MeResponse })
-  login(@Body() _credentials: LoginDto, @Req() req: Request): MeResponse & { csrfToken: string } {
-    return {
-      ...MeResponse.from(req.user as SessionUser),
-      csrfToken: csrf.generateToken(req, true),
-    };
+  async login(
+    @Body() _credentials: LoginDto,
+    @Req() req: Request,
+  ): Promise<MeResponse & { csrfToken: string }> {
+    const user = req.user as SessionUser;
+    await this.auth.recordSignIn(req, user);
+    return { ...MeResponse.from(user), csrfToken: csrf.generateToken(req, true) };
   }
 
   @Public()
   @Post('logout')
   @HttpCode(204)
   async logout(@Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<void> {
+    await this.auth.recordSignOut(req);
     await new Promise<void>((resolve, reject) =>
       req.logout((err) => (err ? reject(err) : resolve())),
     );
@@ -51,5 +87,86 @@ export class AuthController {
   @ApiOkResponse({ type: MeResponse })
   me(@CurrentUser() user: SessionUser): MeResponse {
     return MeResponse.from(user);
+  }
+
+  @SignedIn()
+  @Patch('me')
+  @ApiOkResponse({ type: MeResponse })
+  async updateMe(
+    @CurrentUser() user: SessionUser,
+    @Body() change: UpdateProfileDto,
+    @Req() req: Request,
+  ): Promise<MeResponse> {
+    await this.users.updateProfile(user.id, change, originOf(req));
+    const updated = await this.users.loadSessionUser(user.id);
+    if (!updated) throw notFound('Account');
+    return MeResponse.from(updated);
+  }
+
+  @SignedIn()
+  @Post('password')
+  @HttpCode(204)
+  @ApiNoContentResponse({ description: 'Changed; other sessions of the account have ended' })
+  async changePassword(
+    @CurrentUser() user: SessionUser,
+    @Body() dto: ChangePasswordDto,
+    @Req() req: Request,
+  ): Promise<void> {
+    await this.auth.changePassword(req, user, dto);
+  }
+
+  @Public()
+  @RateLimit(RATE_LIMITS.register)
+  @Post('register')
+  @HttpCode(202)
+  @ApiAcceptedResponse({
+    type: AcceptedResponse,
+    description: 'The same answer for a taken address',
+  })
+  async register(@Body() dto: RegisterDto, @Req() req: Request): Promise<AcceptedResponse> {
+    await this.registration.register(dto, originOf(req));
+    return { message: REGISTRATION_ACCEPTED };
+  }
+
+  @Public()
+  @RateLimit(RATE_LIMITS.token)
+  @Post('verify')
+  @HttpCode(204)
+  @ApiNoContentResponse({ description: 'The address is confirmed' })
+  async verify(@Body() dto: TokenDto, @Req() req: Request): Promise<void> {
+    if (!(await this.verification.verify(dto.token, originOf(req)))) throw invalidToken();
+  }
+
+  @SignedIn()
+  @RateLimit(RATE_LIMITS.resendVerification)
+  @Post('verify/resend')
+  @HttpCode(204)
+  @ApiNoContentResponse({ description: 'A new link is in the outbox' })
+  async resendVerification(@CurrentUser() me: SessionUser, @Req() req: Request): Promise<void> {
+    await this.verification.resend(await this.users.get(me.id), originOf(req));
+  }
+
+  @Public()
+  @RateLimit(RATE_LIMITS.passwordReset)
+  @Post('password-reset')
+  @HttpCode(202)
+  @ApiAcceptedResponse({ type: AcceptedResponse, description: 'The same answer for any address' })
+  async requestReset(
+    @Body() dto: PasswordResetRequestDto,
+    @Req() req: Request,
+  ): Promise<AcceptedResponse> {
+    await this.reset.request(dto.email, originOf(req));
+    return { message: RESET_ACCEPTED };
+  }
+
+  @Public()
+  @RateLimit(RATE_LIMITS.token)
+  @Post('password-reset/confirm')
+  @HttpCode(204)
+  @ApiNoContentResponse({ description: 'The password is set; every session of the account ended' })
+  async confirmReset(@Body() dto: PasswordResetConfirmDto, @Req() req: Request): Promise<void> {
+    const email = await this.reset.confirm(dto.token, dto.password, originOf(req));
+    // Whoever holds the mailbox may sign in again at once.
+    await this.limiter.recordSuccess(req, email);
   }
 }

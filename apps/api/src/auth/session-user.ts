@@ -12,6 +12,7 @@ export interface SessionUser {
   name: string;
   affiliation: string;
   country: string;
+  orcid: string | null;
   emailVerified: boolean;
   globalRoles: GlobalRole[];
   callRoles: CallRoleGrant[];
@@ -29,6 +30,8 @@ export interface SerializedSession {
 declare module 'express-session' {
   interface SessionData {
     signedInAt?: number;
+    /** Where passport keeps the serialized user. */
+    passport?: { user?: SerializedSession };
   }
 }
 

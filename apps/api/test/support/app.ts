@@ -1,4 +1,5 @@
 import 'reflect-metadata';
+import { randomInt } from 'node:crypto';
 import { Test } from '@nestjs/testing';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
@@ -32,8 +33,12 @@ export interface TestApp {
   app: NestExpressApplication;
   clock: TestClock;
   dataSource: DataSource;
-  /** A fresh cookie-keeping client (one browser). */
-  agent(): TestAgent;
+  /**
+   * A fresh cookie-keeping client (one browser). Each comes from its own client address (sent as
+   * X-Forwarded-For, which the test app trusts), so one test's requests never use up another's
+   * per-address rate limits; pass `ip` to make several agents share one address.
+   */
+  agent(options?: { ip?: string }): TestAgent;
   close(): Promise<void>;
 }
 
@@ -43,7 +48,7 @@ export interface TestApp {
  */
 export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const saved = { ...process.env };
-  Object.assign(process.env, { OUTBOX_POLL_MS: '100', NODE_ENV: 'test' }, env);
+  Object.assign(process.env, { OUTBOX_POLL_MS: '100', NODE_ENV: 'test', TRUST_PROXY: 'true' }, env);
   try {
     const clock = new TestClock();
     const moduleRef = await Test.createTestingModule({ imports: [AppModule] })
@@ -60,7 +65,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
       app,
       clock,
       dataSource,
-      agent: () => new TestAgent(app),
+      agent: (options) => new TestAgent(app, options?.ip ?? randomTestIp()),
       async close() {
         await app.close();
         await extras.close();
@@ -71,6 +76,9 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
   }
 }
 
+/** An address in 10.0.0.0/8, which no test otherwise uses. */
+export const randomTestIp = () => `10.${randomInt(256)}.${randomInt(256)}.${randomInt(1, 255)}`;
+
 /**
  * A supertest agent that keeps cookies and sends the CSRF token on writes, as the web app does.
  * The token is fetched before the write is created: supertest attaches cookies at creation.
@@ -79,8 +87,11 @@ export class TestAgent {
   readonly http: ReturnType<typeof request.agent>;
   private token?: string;
 
-  constructor(app: NestExpressApplication) {
-    this.http = request.agent(app.getHttpServer());
+  constructor(
+    app: NestExpressApplication,
+    readonly ip: string,
+  ) {
+    this.http = request.agent(app.getHttpServer()).set('X-Forwarded-For', ip);
   }
 
   async csrf(): Promise<string> {

@@ -26,6 +26,9 @@ export class MeResponse {
   @ApiProperty()
   country: string;
 
+  @ApiProperty({ nullable: true, type: String })
+  orcid: string | null;
+
   @ApiProperty()
   emailVerified: boolean;
 
@@ -36,7 +39,7 @@ export class MeResponse {
   callRoles: CallRoleResponse[];
 
   static from(user: SessionUser): MeResponse {
-    const { id, email, name, affiliation, country, emailVerified, roles, callRoles } = user;
-    return { id, email, name, affiliation, country, emailVerified, roles, callRoles };
+    const { id, email, name, affiliation, country, orcid, emailVerified, roles, callRoles } = user;
+    return { id, email, name, affiliation, country, orcid, emailVerified, roles, callRoles };
   }
 }

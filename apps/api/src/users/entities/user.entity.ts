@@ -56,6 +56,9 @@ export class User {
   @Column('int', { name: 'session_epoch', default: 0 })
   sessionEpoch: number;
 
+  @Column('timestamptz', { name: 'last_sign_in_at', nullable: true })
+  lastSignInAt: Date | null;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt: Date;
 
