@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
 import { AuditModule } from './audit/audit.module.js';
 import { AuthModule } from './auth/auth.module.js';
+import { CalculatorModule } from './calculator/calculator.module.js';
 import { ClockModule } from './common/clock.js';
 import { ErrorEnvelopeFilter } from './common/filters/error-envelope.filter.js';
 import { CsrfGuard } from './common/guards/csrf.guard.js';
@@ -22,6 +23,7 @@ import { UsersModule } from './users/users.module.js';
     UsersModule,
     AuthModule,
     HealthModule,
+    CalculatorModule,
   ],
   providers: [
     // Order matters: CSRF, then sign-in, then roles.
