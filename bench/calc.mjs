@@ -24,8 +24,8 @@ const WARM_UP_MS = 1000;
 const INPUTS = 1024;
 
 /** Deterministic pseudo-random numbers in [0, 1) (a 32-bit LCG), so every run sees the same inputs. */
-function makeRandom(seed = 20240601) {
-  let state = seed >>> 0;
+function makeRandom(initialState = 20240601) {
+  let state = initialState >>> 0;
   return () => {
     state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
     return state / 4294967296;
