@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import request from 'supertest';
-import { createTestApp, type TestApp } from './support/app.js';
+import { createTestApp, randomTestIp, type TestApp } from './support/app.js';
 
 /*
  * POST /api/calculator against numbers computed here, independently of @skyhours/calc, from the
@@ -58,10 +58,14 @@ describe('POST /api/calculator', () => {
   });
   afterAll(() => t.close());
 
-  /** An anonymous client without a session or a CSRF token, as a visitor's browser is. */
+  /**
+   * An anonymous client without a session or a CSRF token, as a visitor's browser is, from an
+   * address of its own so that the per-address rate limit does not count other tests' requests.
+   */
   const post = (body: unknown) =>
     request(t.app.getHttpServer())
       .post('/api/calculator')
+      .set('X-Forwarded-For', randomTestIp())
       .set('Content-Type', 'application/json')
       .send(body as object);
 
@@ -371,6 +375,7 @@ describe('POST /api/calculator', () => {
     it('answers 400 for a body that is not JSON', async () => {
       const res = await request(t.app.getHttpServer())
         .post('/api/calculator')
+        .set('X-Forwarded-For', randomTestIp())
         .set('Content-Type', 'application/json')
         .send('{"array": ');
       expect(res.status).toBe(400);
@@ -379,12 +384,13 @@ describe('POST /api/calculator', () => {
   });
 
   it('needs no session and no CSRF token, although other writes do', async () => {
+    const ip = randomTestIp();
     const http = request(t.app.getHttpServer());
-    const res = await http.post('/api/calculator').send(baseBody());
+    const res = await http.post('/api/calculator').set('X-Forwarded-For', ip).send(baseBody());
     expect(res.status).toBe(200);
     expect(res.headers['set-cookie']).toBeUndefined();
     // The same anonymous client is refused on a write that is not exempt.
-    const logout = await request(t.app.getHttpServer()).post('/api/auth/logout');
+    const logout = await http.post('/api/auth/logout').set('X-Forwarded-For', ip);
     expect(logout.status).toBe(403);
     expect(logout.body.code).toBe('CSRF_INVALID');
   });
@@ -429,6 +435,7 @@ describe('POST /api/calculator with random bodies', () => {
       fc.asyncProperty(bodies, async (body) => {
         const res = await request(t.app.getHttpServer())
           .post('/api/calculator')
+          .set('X-Forwarded-For', randomTestIp())
           .set('Content-Type', 'application/json')
           .send(JSON.stringify(body));
         expect(res.status).toBeLessThan(500);
@@ -452,14 +459,21 @@ describe('POST /api/calculator rate limit', () => {
   afterAll(() => t.close());
 
   it('answers 429 in the error envelope after 120 requests a minute from one address', async () => {
-    const http = request(t.app.getHttpServer());
+    const ip = randomTestIp();
+    const send = (body: object, from = ip) =>
+      request(t.app.getHttpServer())
+        .post('/api/calculator')
+        .set('X-Forwarded-For', from)
+        .send(body);
+    // Invalid bodies count too: the limit is checked before validation.
     for (let i = 0; i < 120; i++) {
-      const res = await http.post('/api/calculator').send({});
-      expect(res.status).toBe(400);
+      expect((await send({})).status).toBe(400);
     }
-    const res = await http.post('/api/calculator').send(baseBody());
+    const res = await send(baseBody());
     expect(res.status).toBe(429);
     expect(res.body).toMatchObject({ statusCode: 429, code: 'RATE_LIMITED' });
     expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
+    // Another address is not held back.
+    expect((await send(baseBody(), randomTestIp())).status).toBe(200);
   });
 });

@@ -1,16 +1,25 @@
-import { Body, Controller, HttpCode, Post, UseGuards } from '@nestjs/common';
+import { Body, Controller, HttpCode, Post } from '@nestjs/common';
 import {
   ApiBadRequestResponse,
   ApiOkResponse,
   ApiTags,
   ApiTooManyRequestsResponse,
 } from '@nestjs/swagger';
+import { RateLimit } from '../auth/rate-limit/rate-limit.decorator.js';
+import type { RateLimitRule } from '../auth/rate-limit/rate-limits.js';
 import { Public } from '../common/decorators/public.decorator.js';
 import { SkipCsrf } from '../common/decorators/skip-csrf.decorator.js';
-import { CalculatorRateLimitGuard } from './calculator-rate-limit.guard.js';
 import { CalculatorService } from './calculator.service.js';
 import { CalculateDto } from './dto/calculate.dto.js';
 import { CalculatorResponse } from './dto/calculator.response.js';
+
+/**
+ * Per client address: ample for a person or a script checking observations one by one (the
+ * Calculator page computes in the browser and does not call this), not for bulk computing.
+ */
+export const CALCULATOR_RATE_LIMIT = {
+  perIp: { limit: 120, windowSeconds: 60 },
+} as const satisfies RateLimitRule;
 
 @ApiTags('calculator')
 @Controller('calculator')
@@ -20,7 +29,7 @@ export class CalculatorController {
   /** Anyone may compute; the POST changes nothing, so it needs no CSRF token. */
   @Public()
   @SkipCsrf()
-  @UseGuards(CalculatorRateLimitGuard)
+  @RateLimit(CALCULATOR_RATE_LIMIT)
   @Post()
   @HttpCode(200)
   @ApiOkResponse({ type: CalculatorResponse, description: 'Every number and the checks' })
