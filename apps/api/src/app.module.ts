@@ -1,8 +1,10 @@
 import { Module } from '@nestjs/common';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
+import { ScheduleModule } from '@nestjs/schedule';
 import { AuditModule } from './audit/audit.module.js';
 import { AuthModule } from './auth/auth.module.js';
 import { CalculatorModule } from './calculator/calculator.module.js';
+import { CallsModule } from './calls/calls.module.js';
 import { ClockModule } from './common/clock.js';
 import { ErrorEnvelopeFilter } from './common/filters/error-envelope.filter.js';
 import { CsrfGuard } from './common/guards/csrf.guard.js';
@@ -12,17 +14,22 @@ import { ConfigModule } from './config/config.module.js';
 import { DatabaseModule } from './database/database.module.js';
 import { HealthModule } from './health/health.module.js';
 import { MailModule } from './mail/mail.module.js';
+import { ObservatoryModule } from './observatory/observatory.module.js';
 import { UsersModule } from './users/users.module.js';
 
 @Module({
   imports: [
     ConfigModule,
+    ClockModule,
     DatabaseModule,
     AuditModule,
     MailModule,
     UsersModule,
     AuthModule,
     HealthModule,
+    ScheduleModule.forRoot(),
+    ObservatoryModule,
+    CallsModule,
     CalculatorModule,
   ],
   providers: [

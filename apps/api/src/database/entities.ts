@@ -1,8 +1,28 @@
 import { AccountToken } from '../users/entities/account-token.entity.js';
 import { AppMeta } from '../app-meta/app-meta.entity.js';
 import { AuditEvent } from '../audit/audit-event.entity.js';
+import { CallCapacity } from '../calls/entities/call-capacity.entity.js';
+import { CallRoleInvitation } from '../calls/entities/call-role-invitation.entity.js';
+import { GrantedCallRole } from '../calls/entities/call-role.entity.js';
+import { Call } from '../calls/entities/call.entity.js';
 import { OutboxMessage } from '../mail/outbox-message.entity.js';
+import { Configuration } from '../observatory/entities/configuration.entity.js';
+import { Observatory } from '../observatory/entities/observatory.entity.js';
+import { ReceiverBand } from '../observatory/entities/receiver-band.entity.js';
 import { User } from '../users/entities/user.entity.js';
 
 /** Every entity, listed once; a feature module adds its entities here and to its forFeature(). */
-export const entities = [AccountToken, AppMeta, AuditEvent, OutboxMessage, User];
+export const entities = [
+  AccountToken,
+  AppMeta,
+  AuditEvent,
+  OutboxMessage,
+  User,
+  Observatory,
+  Configuration,
+  ReceiverBand,
+  Call,
+  CallCapacity,
+  GrantedCallRole,
+  CallRoleInvitation,
+];
