@@ -11,6 +11,8 @@ const apiProxy: Record<string, ProxyOptions> = {
 };
 
 export default defineConfig({
+  // Explicit, so builds and tests behave the same when run from the repository root.
+  root: fromHere('.'),
   plugins: [react()],
   resolve: {
     alias: {

@@ -81,6 +81,8 @@ export function Header() {
       as="header"
       className="chakra-theme dark"
       colorScheme="dark"
+      // Re-declared so the palette's variables resolve inside the dark scope, not at <html>.
+      colorPalette="brand"
       bg="header.bg"
       color="fg"
       borderBottomWidth="1px"
@@ -99,7 +101,7 @@ export function Header() {
             <Logo />
           </RouterLink>
         </Link>
-        <Box hideBelow={WIDE} ms="4">
+        <Box hideBelow={WIDE} ms="6">
           <MainNav orientation="horizontal" />
         </Box>
         <Spacer />

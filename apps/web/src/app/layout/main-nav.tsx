@@ -16,12 +16,7 @@ export function MainNav({ orientation, onNavigate }: MainNavProps) {
   const horizontal = orientation === 'horizontal';
   return (
     <nav aria-label="Main">
-      <Stack
-        as="ul"
-        listStyle="none"
-        direction={horizontal ? 'row' : 'column'}
-        gap={horizontal ? '1' : '0.5'}
-      >
+      <Stack as="ul" listStyle="none" direction={horizontal ? 'row' : 'column'} gap="0.5">
         {visibleNavItems(session).map((item) => (
           <li key={item.to}>
             <Link
@@ -29,7 +24,7 @@ export function MainNav({ orientation, onNavigate }: MainNavProps) {
               display="flex"
               alignItems="center"
               gap="2"
-              px="2.5"
+              px={horizontal ? '2' : '2.5'}
               py={horizontal ? '1.5' : '2.5'}
               rounded="md"
               color="fg.muted"
@@ -42,7 +37,8 @@ export function MainNav({ orientation, onNavigate }: MainNavProps) {
               _currentPage={{ color: 'fg', fontWeight: 'semibold', borderColor: 'brand.focusRing' }}
             >
               <NavLink to={item.to} end={item.to === paths.desk} onClick={onNavigate}>
-                <Icon as={item.icon} boxSize="4" aria-hidden />
+                {/* The bar has room for words only; the drawer shows the icons too. */}
+                {!horizontal && <Icon as={item.icon} boxSize="4" aria-hidden />}
                 {item.label}
               </NavLink>
             </Link>

@@ -1,4 +1,5 @@
 import { screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { json, makeSession, mockApi, signedOut } from '@/testing/mock-api';
 import { renderRoute } from '@/testing/render';
@@ -36,16 +37,22 @@ describe('Desk', () => {
     expect(panel.getByText('Down').closest('[data-tone]')?.querySelector('svg')).not.toBeNull();
   });
 
-  it('says the server is unreachable when no answer comes', async () => {
+  it('says the server is unreachable when no answer comes, and checks again on request', async () => {
+    let answer = false;
     mockApi({
       'GET /api/auth/me': signedOut(),
-      'GET /api/health': () => Promise.reject(new TypeError('Failed to fetch')),
+      'GET /api/health': () =>
+        answer ? json(healthy) : Promise.reject(new TypeError('Failed to fetch')),
     });
     renderRoute('/');
 
     const panel = await statusPanel();
     expect(await panel.findByText('Unreachable: the server did not answer')).toBeInTheDocument();
-    expect(panel.getByRole('button', { name: 'Check again' })).toBeInTheDocument();
+    expect(panel.getByText('The server could not be reached.')).toBeInTheDocument();
+
+    answer = true;
+    await userEvent.click(panel.getByRole('button', { name: 'Check again' }));
+    expect(await panel.findByText('All systems working')).toBeInTheDocument();
   });
 
   it('welcomes a signed-out visitor and offers to sign in', async () => {

@@ -1,12 +1,13 @@
 import { queryOptions } from '@tanstack/react-query';
 import { api, isApiError } from '@/lib/api-client';
 
-export type Health = {
+/** What `GET /api/health` answers, with 200 when all is well and 503 when a part is down. */
+export interface Health {
   status: 'ok' | 'degraded';
   database: 'up' | 'down';
   mail: 'up' | 'down';
   version: string;
-};
+}
 
 export const healthKeys = {
   all: ['health'] as const,

@@ -49,15 +49,14 @@ export function HealthPanel() {
         <Box aria-live="polite">
           {health.isPending ? (
             <BlockLoader label="Checking the system status" />
-          ) : health.data ? (
-            <HealthReport health={health.data} />
-          ) : (
+          ) : health.isError ? (
+            // An older good report is not shown once the server stops answering.
             <>
               <StatusIndicator tone="blocker">
                 Unreachable: the server did not answer
               </StatusIndicator>
               <Text color="fg.muted" mt="2" textStyle="sm">
-                {health.error?.message}
+                {health.error.message}
               </Text>
               <Button
                 size="sm"
@@ -69,6 +68,8 @@ export function HealthPanel() {
                 Check again
               </Button>
             </>
+          ) : (
+            <HealthReport health={health.data} />
           )}
         </Box>
       </Card.Body>

@@ -1,0 +1,259 @@
+/**
+ * From the form's text to the library's numbers and back: each typed value is parsed and put in
+ * the library's units, the library computes (the same code the server runs), and every problem,
+ * whether a parse error or the library's own validation, is named by the form field it is about.
+ */
+import {
+  CalcInputError,
+  CoordinateParseError,
+  evaluateObservation,
+  parseDeclination,
+  parseRightAscension,
+  type ArraySettings,
+  type BandSettings,
+  type ConfigurationSettings,
+  type LineInput,
+  type ObservationInput,
+  type ObservationResult,
+} from '@skyhours/calc';
+import type { StoredBand, StoredConfiguration, StoredObservatory } from './api';
+import type {
+  AngleUnit,
+  CalculatorValues,
+  FieldName,
+  FluxUnit,
+  FrequencyUnit,
+  TimeUnit,
+} from './form-values';
+
+/** The stored records the form names, once they are loaded. */
+export interface StoredSetup {
+  observatory: StoredObservatory;
+  configuration: StoredConfiguration | undefined;
+  band: StoredBand | undefined;
+}
+
+export type FieldErrors = Partial<Record<FieldName, string>>;
+
+export type Calculation =
+  | { status: 'ready'; input: ObservationInput; result: ObservationResult }
+  /** `errors` by field; `others` for problems no field of the form shows. */
+  | { status: 'invalid'; errors: FieldErrors; others: string[] }
+  /** The stored setup is chosen but not loaded (yet, or at all). */
+  | { status: 'waiting' };
+
+export const GHZ_PER: Record<FrequencyUnit, number> = { GHz: 1, MHz: 1e-3 };
+export const ARCSEC_PER: Record<AngleUnit, number> = { arcsec: 1, arcmin: 60 };
+export const MICROJY_PER: Record<FluxUnit, number> = { uJy: 1, mJy: 1000 };
+export const HOURS_PER: Record<TimeUnit, number> = { h: 1, min: 1 / 60 };
+
+const NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$/i;
+
+/** A typed number: null when left empty, a message when it is not a number. */
+export function parseNumber(text: string): number | null | { error: string } {
+  const trimmed = text.trim().replace(/^−/, '-');
+  if (trimmed === '') return null;
+  if (NUMBER.test(trimmed)) return Number(trimmed);
+  if (/^[+-]?\d*,\d+$/.test(trimmed)) return { error: 'Use a point for decimals, e.g. 1.4.' };
+  return { error: `“${trimmed.slice(0, 20)}” is not a number.` };
+}
+
+/** Collects the problems of one conversion. */
+class Reader {
+  readonly errors: FieldErrors = {};
+
+  constructor(private readonly values: CalculatorValues) {}
+
+  /** The field as a number times `scale`; NaN (and an error) when it is missing or not a number. */
+  required(field: FieldName, scale = 1): number {
+    const parsed = parseNumber(this.values[field]);
+    if (parsed === null) return this.fail(field, 'Required.');
+    if (typeof parsed === 'object') return this.fail(field, parsed.error);
+    return parsed * scale;
+  }
+
+  /** The field as a number times `scale`, or null when it is left empty. */
+  optional(field: FieldName, scale = 1): number | null {
+    const parsed = parseNumber(this.values[field]);
+    if (parsed === null) return null;
+    if (typeof parsed === 'object') return this.fail(field, parsed.error);
+    return parsed * scale;
+  }
+
+  coordinate(field: 'ra' | 'dec'): number {
+    const text = this.values[field];
+    if (text.trim() === '') return this.fail(field, 'Required.');
+    try {
+      return field === 'ra' ? parseRightAscension(text) : parseDeclination(text);
+    } catch (error) {
+      if (error instanceof CoordinateParseError) return this.fail(field, error.message);
+      throw error;
+    }
+  }
+
+  fail(field: FieldName, message: string): number {
+    this.errors[field] ??= message;
+    return Number.NaN;
+  }
+}
+
+function storedParts(setup: StoredSetup) {
+  const { observatory: o, configuration, band } = setup;
+  const array: ArraySettings = {
+    antennas: o.antennas,
+    dishDiameterM: o.dishDiameterM,
+    latitudeDeg: o.latitudeDeg,
+    longitudeDeg: o.longitudeDeg,
+    elevationLimitDeg: o.elevationLimitDeg,
+    correlatorEfficiency: o.correlatorEfficiency,
+    overheadFraction: o.overheadFraction,
+    beamFactor: o.beamFactor,
+  };
+  return {
+    array,
+    configuration: configuration && {
+      shortestBaselineM: configuration.shortestBaselineM,
+      longestBaselineM: configuration.longestBaselineM,
+    },
+    band: band && {
+      minGHz: band.minGHz,
+      maxGHz: band.maxGHz,
+      tsysK: band.tsysK,
+      apertureEfficiency: band.apertureEfficiency,
+      maxBandwidthMHz: band.maxBandwidthMHz,
+    },
+  };
+}
+
+function customParts(read: Reader) {
+  const overhead = read.required('overheadPercent');
+  const array: ArraySettings = {
+    antennas: read.required('antennas'),
+    dishDiameterM: read.required('dishDiameterM'),
+    latitudeDeg: read.required('latitudeDeg'),
+    longitudeDeg: read.required('longitudeDeg'),
+    elevationLimitDeg: read.required('elevationLimitDeg'),
+    correlatorEfficiency: read.required('correlatorEfficiency'),
+    overheadFraction: overhead / 100,
+    beamFactor: read.optional('beamFactor'),
+  };
+  const configuration: ConfigurationSettings = {
+    shortestBaselineM: read.required('shortestBaselineM'),
+    longestBaselineM: read.required('longestBaselineM'),
+  };
+  const band: BandSettings = {
+    minGHz: read.required('bandMinGHz'),
+    maxGHz: read.required('bandMaxGHz'),
+    tsysK: read.required('tsysK'),
+    apertureEfficiency: read.required('apertureEfficiency'),
+    maxBandwidthMHz: read.required('maxBandwidthMHz'),
+  };
+  return { array, configuration, band };
+}
+
+function lineOf(values: CalculatorValues, read: Reader): LineInput {
+  const restGHz = read.required('restFrequency', GHZ_PER[values.restUnit]);
+  return values.shift === 'velocity'
+    ? { restGHz, velocityKmS: read.required('velocity'), convention: values.convention }
+    : { restGHz, redshift: read.required('redshift') };
+}
+
+/** The library's input paths, and the form field that shows each one's problems. */
+const FIELD_OF_PATH: Record<string, FieldName> = {
+  'array.antennas': 'antennas',
+  'array.dishDiameterM': 'dishDiameterM',
+  'array.latitudeDeg': 'latitudeDeg',
+  'array.longitudeDeg': 'longitudeDeg',
+  'array.elevationLimitDeg': 'elevationLimitDeg',
+  'array.correlatorEfficiency': 'correlatorEfficiency',
+  'array.overheadFraction': 'overheadPercent',
+  'array.beamFactor': 'beamFactor',
+  'configuration.shortestBaselineM': 'shortestBaselineM',
+  'configuration.longestBaselineM': 'longestBaselineM',
+  'band.minGHz': 'bandMinGHz',
+  'band.maxGHz': 'bandMaxGHz',
+  'band.tsysK': 'tsysK',
+  'band.apertureEfficiency': 'apertureEfficiency',
+  'band.maxBandwidthMHz': 'maxBandwidthMHz',
+  frequencyGHz: 'frequency',
+  line: 'restFrequency',
+  'line.restGHz': 'restFrequency',
+  'line.velocityKmS': 'velocity',
+  'line.convention': 'convention',
+  'line.redshift': 'redshift',
+  bandwidthMHz: 'bandwidthMHz',
+  polarizations: 'polarizations',
+  'target.raDeg': 'ra',
+  'target.decDeg': 'dec',
+  'target.extentArcsec': 'extent',
+  'target.resolutionGoalArcsec': 'resolutionGoal',
+  rmsGoalMicroJy: 'rmsGoal',
+  onSourceHours: 'time',
+};
+
+/** The form field a library path (an issue's or a check's) is about, if the form shows it. */
+export function fieldOfPath(path: string, setup: CalculatorValues['setup']): FieldName | null {
+  const field = FIELD_OF_PATH[path];
+  if (!field) return null;
+  // A stored setup's numbers are not form fields: their problems are shown apart.
+  const stored = /^(array|configuration|band)\./.test(path);
+  return stored && setup === 'stored' ? null : field;
+}
+
+/**
+ * Everything the Calculator shows for these values: the library's answer, or what stops it.
+ * `stored` is null while the stored setup is not loaded.
+ */
+export function calculate(values: CalculatorValues, stored: StoredSetup | null): Calculation {
+  const read = new Reader(values);
+  let parts;
+  if (values.setup === 'stored') {
+    if (!stored) return { status: 'waiting' };
+    parts = storedParts(stored);
+    if (!parts.configuration) read.fail('configuration', 'Choose one of the configurations.');
+    if (!parts.band) read.fail('band', 'Choose one of the receiver bands.');
+  } else {
+    parts = customParts(read);
+  }
+
+  const frequency =
+    values.frequencyMode === 'sky'
+      ? { frequencyGHz: read.required('frequency', GHZ_PER[values.frequencyUnit]) }
+      : { line: lineOf(values, read) };
+  const input = {
+    array: parts.array,
+    configuration: parts.configuration as ConfigurationSettings,
+    band: parts.band as BandSettings,
+    ...frequency,
+    bandwidthMHz: read.required('bandwidthMHz'),
+    polarizations: values.polarizations === '1' ? 1 : 2,
+    target: {
+      raDeg: read.coordinate('ra'),
+      decDeg: read.coordinate('dec'),
+      extentArcsec: read.optional('extent', ARCSEC_PER[values.extentUnit]) ?? 0,
+      resolutionGoalArcsec: read.optional('resolutionGoal', ARCSEC_PER[values.resolutionUnit]),
+    },
+    rmsGoalMicroJy: read.optional('rmsGoal', MICROJY_PER[values.rmsUnit]),
+    onSourceHours: read.optional('time', HOURS_PER[values.timeUnit]),
+  } as ObservationInput;
+  if (Object.keys(read.errors).length > 0) {
+    return { status: 'invalid', errors: read.errors, others: [] };
+  }
+
+  try {
+    return { status: 'ready', input, result: evaluateObservation(input) };
+  } catch (error) {
+    if (!(error instanceof CalcInputError)) throw error;
+    const errors: FieldErrors = {};
+    const others: string[] = [];
+    for (const issue of error.issues) {
+      const field = fieldOfPath(issue.path, values.setup);
+      // The library speaks of a fraction; the form asks for a percentage.
+      const message =
+        field === 'overheadPercent' ? 'Must be from 0 % to 1000 %.' : issue.message;
+      if (field) errors[field] ??= message;
+      else others.push(`${issue.path}: ${issue.message}`);
+    }
+    return { status: 'invalid', errors, others };
+  }
+}
