@@ -7,6 +7,8 @@ import {
   CalcInputError,
   CoordinateParseError,
   evaluateObservation,
+  validateObservationInput,
+  type InputIssue,
   parseDeclination,
   parseRightAscension,
   type ArraySettings,
@@ -236,24 +238,33 @@ export function calculate(values: CalculatorValues, stored: StoredSetup | null):
     rmsGoalMicroJy: read.optional('rmsGoal', MICROJY_PER[values.rmsUnit]),
     onSourceHours: read.optional('time', HOURS_PER[values.timeUnit]),
   } as ObservationInput;
-  if (Object.keys(read.errors).length > 0) {
-    return { status: 'invalid', errors: read.errors, others: [] };
-  }
-
+  // With a field unreadable, the library still judges the others, so every problem shows at once.
+  const issues = Object.keys(read.errors).length > 0 ? validateObservationInput(input) : null;
   try {
-    return { status: 'ready', input, result: evaluateObservation(input) };
+    if (issues === null) return { status: 'ready', input, result: evaluateObservation(input) };
   } catch (error) {
     if (!(error instanceof CalcInputError)) throw error;
-    const errors: FieldErrors = {};
-    const others: string[] = [];
-    for (const issue of error.issues) {
-      const field = fieldOfPath(issue.path, values.setup);
-      // The library speaks of a fraction; the form asks for a percentage.
-      const message =
-        field === 'overheadPercent' ? 'Must be from 0 % to 1000 %.' : issue.message;
-      if (field) errors[field] ??= message;
-      else others.push(`${issue.path}: ${issue.message}`);
-    }
-    return { status: 'invalid', errors, others };
+    return invalid(values, read.errors, error.issues);
   }
+  return invalid(values, read.errors, issues);
+}
+
+function invalid(
+  values: CalculatorValues,
+  parseErrors: FieldErrors,
+  issues: readonly InputIssue[],
+): Calculation {
+  const errors: FieldErrors = { ...parseErrors };
+  const others: string[] = [];
+  for (const issue of issues) {
+    const field = fieldOfPath(issue.path, values.setup);
+    // The library speaks of a fraction; the form asks for a percentage.
+    const message = field === 'overheadPercent' ? 'Must be from 0 % to 1000 %.' : issue.message;
+    if (field) errors[field] ??= message;
+    // A field that could not be read is already marked; its "not finite" issue adds nothing.
+    else if (!Number.isNaN(Number.NaN) || !/finite number, got NaN/.test(issue.message)) {
+      others.push(`${issue.path}: ${issue.message}`);
+    }
+  }
+  return { status: 'invalid', errors, others };
 }
