@@ -5,7 +5,8 @@ import { AppModule } from './app.module.js';
 import { AppConfig } from './config/app-config.js';
 import { configureApp } from './configure-app.js';
 
-const app = await NestFactory.create<NestExpressApplication>(AppModule, { bufferLogs: false });
+// Errors and warnings only: the start script prints what a person needs to know.
+const app = await NestFactory.create<NestExpressApplication>(AppModule, { logger: ['error', 'warn'] });
 const extras = configureApp(app);
 const config = app.get(AppConfig);
 await app.listen(config.get('PORT'), config.get('HOST'));
