@@ -29,6 +29,54 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
               index: true,
               ...lazyRoute(queryClient, () => import('./routes/desk'), audienceOf(paths.desk)),
             },
+            {
+              path: paths.calls,
+              ...lazyRoute(queryClient, () => import('@/features/calls/routes/call-list')),
+            },
+            {
+              path: `${paths.calls}/:code`,
+              ...lazyRoute(queryClient, () => import('@/features/calls/routes/call-detail')),
+            },
+            {
+              path: paths.operations,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/operations/routes/operations-home'),
+                audienceOf(paths.operations),
+              ),
+            },
+            {
+              path: paths.operationsArray,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/operations/routes/array-setup'),
+                audienceOf(paths.operations),
+              ),
+            },
+            {
+              path: paths.operationsCalls,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/calls/routes/manage-calls'),
+                audienceOf(paths.operations),
+              ),
+            },
+            {
+              path: paths.newCall,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/calls/routes/call-new'),
+                audienceOf(paths.operations),
+              ),
+            },
+            {
+              path: `${paths.operationsCalls}/:code/edit`,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/calls/routes/call-edit'),
+                audienceOf(paths.operations),
+              ),
+            },
             { path: '*', element: <NotFoundPage /> },
           ],
         },

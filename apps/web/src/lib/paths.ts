@@ -10,10 +10,20 @@ export const paths = {
   reviewing: '/reviewing',
   standing: '/standing',
   operations: '/operations',
+  operationsArray: '/operations/array',
+  operationsCalls: '/operations/calls',
+  newCall: '/operations/calls/new',
   accounts: '/accounts',
   profile: '/profile',
   signIn: '/sign-in',
 } as const;
+
+/** A call's public page. */
+export const callHref = (code: string) => `${paths.calls}/${encodeURIComponent(code)}`;
+
+/** Staff's form for changing a call. */
+export const editCallHref = (code: string) =>
+  `${paths.operationsCalls}/${encodeURIComponent(code)}/edit`;
 
 /** The sign-in screen, asked to come back to `next` (a path inside the app) afterwards. */
 export function signInHref(next?: string): string {
