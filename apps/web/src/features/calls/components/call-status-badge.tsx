@@ -8,7 +8,7 @@ export function CallStatusBadge({ call }: { call: Pick<Call, 'status' | 'accepti
   return (
     <Badge
       size="md"
-      variant={call.status === 'open' ? 'solid' : 'subtle'}
+      variant={call.status === 'open' ? 'solid' : 'outline'}
       colorPalette={call.status === 'open' ? 'brand' : 'gray'}
     >
       {upcoming ? 'Opening soon' : STATUS_LABELS[call.status]}

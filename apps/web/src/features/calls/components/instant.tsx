@@ -23,8 +23,12 @@ export function Instant({ at, callZone, now }: InstantProps) {
       </Text>
       <Text fontSize="sm" color="fg.muted">
         {utc}
-        {site && site !== local ? ` · ${site} (${callZone})` : ''}
       </Text>
+      {site && site !== local && (
+        <Text fontSize="sm" color="fg.muted">
+          In the call&apos;s zone: {site}
+        </Text>
+      )}
       {now && (
         <Text fontSize="sm" color="fg.muted" aria-live="off">
           {formatCountdown(at, now)}

@@ -1,4 +1,4 @@
-import { Box, Button, Card, Heading, HStack, List, Stack, Text } from '@chakra-ui/react';
+import { Box, Button, Card, Flex, Heading, HStack, Stack, Text } from '@chakra-ui/react';
 import { Check } from 'lucide-react';
 import { useState } from 'react';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
@@ -44,12 +44,13 @@ export function LifecyclePanel({ call }: { call: Call }) {
           <Heading as="h2" size="md" id="lifecycle-heading">
             Lifecycle
           </Heading>
-          <List.Root as="ol" listStyle="none" display="flex" flexWrap="wrap" gap="2" ms="0">
+          <Flex as="ol" listStyleType="none" wrap="wrap" gap="2" m="0" p="0">
             {CALL_STATUSES.map((status, index) => {
               const done = index < current;
               const here = index === current;
               return (
-                <List.Item
+                <Box
+                  as="li"
                   key={status}
                   aria-current={here ? 'step' : undefined}
                   px="2.5"
@@ -69,10 +70,10 @@ export function LifecyclePanel({ call }: { call: Call }) {
                     </Text>
                     {done && <Box srOnly>(done)</Box>}
                   </HStack>
-                </List.Item>
+                </Box>
               );
             })}
-          </List.Root>
+          </Flex>
           <Text color="fg.muted">{STATUS_MEANINGS[call.status]}</Text>
           {next === 'closed' ? (
             <Text>

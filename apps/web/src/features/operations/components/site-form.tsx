@@ -9,10 +9,11 @@ import {
   Stack,
 } from '@chakra-ui/react';
 import { useMemo } from 'react';
-import { type Path, type RegisterOptions, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { FormError, FormField } from '@/components/ui/form-field';
 import { setServerErrors } from '@/lib/form-errors';
 import type { Observatory, SiteInput } from '../api';
+import { numberRule } from './number-rule';
 
 type SiteValues = Record<Exclude<keyof SiteInput, 'name' | 'timeZone'>, string> & {
   name: string;
@@ -93,20 +94,6 @@ const toValues = (o: Observatory | undefined): SiteValues => ({
   beamFactor: o ? String(o.beamFactor) : '1.13',
 });
 
-const numberRule = (
-  field: (typeof NUMERIC)[number],
-): RegisterOptions<SiteValues, Path<SiteValues>> => ({
-  required: `Give the ${field.label.toLowerCase()}`,
-  validate: (value) => {
-    const n = Number(value);
-    if (String(value).trim() === '' || !Number.isFinite(n))
-      return `Give the ${field.label.toLowerCase()} as a number`;
-    if (field.integer && !Number.isInteger(n)) return 'Give a whole number';
-    if (n < field.min || n > field.max) return `Between ${field.min} and ${field.max}`;
-    return true;
-  },
-});
-
 /** The array's site and instrument numbers; saves the whole set at once. */
 export function SiteForm({
   observatory,
@@ -172,10 +159,16 @@ export function SiteForm({
                 >
                   {field.unit ? (
                     <InputGroup endElement={field.unit}>
-                      <Input inputMode="decimal" {...register(field.name, numberRule(field))} />
+                      <Input
+                        inputMode="decimal"
+                        {...register(field.name, numberRule(field.label.toLowerCase(), field))}
+                      />
                     </InputGroup>
                   ) : (
-                    <Input inputMode="decimal" {...register(field.name, numberRule(field))} />
+                    <Input
+                      inputMode="decimal"
+                      {...register(field.name, numberRule(field.label.toLowerCase(), field))}
+                    />
                   )}
                 </FormField>
               ))}
