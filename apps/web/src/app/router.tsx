@@ -1,6 +1,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { PageLoader } from '@/components/ui/loading';
+import { authPaths } from '@/features/auth/paths';
 import { paths } from '@/lib/paths';
 import { AppLayout } from './layout/app-layout';
 import { lazyRoute } from './lazy-route';
@@ -75,6 +76,31 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                 queryClient,
                 () => import('@/features/calls/routes/call-edit'),
                 audienceOf(paths.operations),
+              ),
+            },
+            ...(
+              [
+                [authPaths.signIn, () => import('@/features/auth/routes/sign-in')],
+                [authPaths.register, () => import('@/features/auth/routes/register')],
+                [authPaths.verify, () => import('@/features/auth/routes/verify')],
+                [authPaths.forgotPassword, () => import('@/features/auth/routes/forgot-password')],
+                [authPaths.resetPassword, () => import('@/features/auth/routes/reset-password')],
+              ] as const
+            ).map(([path, importer]) => ({ path, ...lazyRoute(queryClient, importer) })),
+            {
+              path: paths.profile,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/profile/routes/profile'),
+                'signed-in',
+              ),
+            },
+            {
+              path: paths.accounts,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/accounts/routes/accounts'),
+                audienceOf(paths.accounts),
               ),
             },
             { path: '*', element: <NotFoundPage /> },
