@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { createTestApp, type TestApp } from './support/app.js';
 import { NEW_PASSWORD, registration } from './support/accounts.js';
 import { makeUser, TEST_PASSWORD, uniqueEmail } from './support/factories.js';
@@ -134,6 +135,28 @@ describe('rights matrix', () => {
         expect(res.body).toMatchObject({ statusCode: status, code: expect.any(String) });
     },
   );
+
+  it('refuses every write under its prefixes without the CSRF token', async () => {
+    const writes = servedRoutes(t.app).filter(
+      (route) =>
+        !route.startsWith('GET ') &&
+        MATRIX_PREFIXES.some((prefix) => route.split(' ')[1]!.startsWith(prefix)),
+    );
+    expect(writes).toContain('POST /api/auth/login');
+    for (const route of writes) {
+      const [method, path] = route.split(' ') as [string, string];
+      const agent = t.agent();
+      await agent.csrf(); // a session with a token exists; the request just does not send it
+      const res = await agent.http[method.toLowerCase() as 'post'](
+        path.replace(/:[a-zA-Z]+/g, randomUUID()),
+      ).send({});
+      expect({ route, status: res.status, code: res.body.code }).toEqual({
+        route,
+        status: 403,
+        code: 'CSRF_INVALID',
+      });
+    }
+  });
 
   it('has a row for every served route under its prefixes, and no row for a route not served', () => {
     const served = servedRoutes(t.app).filter((route) =>
