@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { createTestApp, type TestApp } from './support/app.js';
 import { NEW_PASSWORD, registration } from './support/accounts.js';
+import { CALLS_MATRIX_PREFIXES, CALLS_ROWS } from './support/calls-rights.js';
 import { makeUser, TEST_PASSWORD, uniqueEmail } from './support/factories.js';
 import {
   ACTOR_FACTORIES,
@@ -99,10 +100,17 @@ const ROWS: RightsRow[] = [
     expect: adminOnly(204),
   },
   { route: 'GET /api/audit', expect: adminOnly(200) },
+  ...CALLS_ROWS,
 ];
 
 /** Route prefixes whose every served route must have a row; a later issue adds its own. */
-const MATRIX_PREFIXES = ['/api/health', '/api/auth', '/api/users', '/api/audit'];
+const MATRIX_PREFIXES = [
+  '/api/health',
+  '/api/auth',
+  '/api/users',
+  '/api/audit',
+  ...CALLS_MATRIX_PREFIXES,
+];
 
 describe('rights matrix', () => {
   let t: TestApp;

@@ -1,6 +1,7 @@
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import type { User } from '../../src/users/entities/user.entity.js';
 import type { TestAgent, TestApp } from './app.js';
+import { callRoleActor } from './calls-rights.js';
 import { makeUser, TEST_PASSWORD } from './factories.js';
 
 /**
@@ -57,6 +58,8 @@ export const ACTOR_FACTORIES: Partial<Record<ActorName, ActorFactory>> = {
   proposer: signedIn({}),
   staff: signedIn({ roles: ['staff'] }),
   admin: signedIn({ roles: ['admin'] }),
+  referee: callRoleActor('referee'),
+  chair: callRoleActor('chair'),
 };
 
 export async function send(actor: Actor, method: string, path: string, body?: object) {
