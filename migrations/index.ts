@@ -1,6 +1,8 @@
 import { Foundation1764626400000 } from './1764626400000-foundation.js';
 import { ObservatoryAndCalls1764800000000 } from './1764800000000-observatory-and-calls.js';
 import { Accounts1764799200000 } from './1764799200000-accounts.js';
+import { Documents1764880000000 } from './1764880000000-documents.js';
+import { Proposals1764960000000 } from './1764960000000-proposals.js';
 
 /**
  * Every migration in order. A new migration file is added here too; listing them (rather than a
@@ -10,4 +12,6 @@ export const migrations = [
   Foundation1764626400000,
   Accounts1764799200000,
   ObservatoryAndCalls1764800000000,
+  Documents1764880000000,
+  Proposals1764960000000,
 ];

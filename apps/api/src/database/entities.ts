@@ -9,6 +9,12 @@ import { OutboxMessage } from '../mail/outbox-message.entity.js';
 import { Configuration } from '../observatory/entities/configuration.entity.js';
 import { Observatory } from '../observatory/entities/observatory.entity.js';
 import { ReceiverBand } from '../observatory/entities/receiver-band.entity.js';
+import { ScienceCaseDocument } from '../documents/entities/science-case-document.entity.js';
+import { ProposalMember } from '../proposals/entities/proposal-member.entity.js';
+import { ProposalObservation } from '../proposals/entities/proposal-observation.entity.js';
+import { ProposalTarget } from '../proposals/entities/proposal-target.entity.js';
+import { ProposalVersion } from '../proposals/entities/proposal-version.entity.js';
+import { Proposal } from '../proposals/entities/proposal.entity.js';
 import { User } from '../users/entities/user.entity.js';
 
 /** Every entity, listed once; a feature module adds its entities here and to its forFeature(). */
@@ -25,4 +31,10 @@ export const entities = [
   CallCapacity,
   GrantedCallRole,
   CallRoleInvitation,
+  ScienceCaseDocument,
+  Proposal,
+  ProposalMember,
+  ProposalTarget,
+  ProposalObservation,
+  ProposalVersion,
 ];
