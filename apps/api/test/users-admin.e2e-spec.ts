@@ -96,6 +96,7 @@ describe('accounts (admin) and the audit log', () => {
     expect(audit.body.items[0]).toMatchObject({
       action: 'user.roles-changed',
       actor: { id: adminId, name: 'Admin Person' },
+      subject: { id: user.id, name: user.name, email: user.email },
       subjectType: 'user',
       subjectId: user.id,
       details: { from: [], to: ['staff'] },

@@ -25,6 +25,8 @@ interface AuditRow {
   actor_id: string | null;
   actor_name: string | null;
   actor_email: string | null;
+  subject_name: string | null;
+  subject_email: string | null;
   total: string;
 }
 
@@ -67,9 +69,12 @@ export class AuditService {
     const rows: AuditRow[] = await this.dataSource.query(
       `SELECT e.id::text AS id, e.at, e.action, e.subject_type, e.subject_id, e.details, e.ip,
               u.id AS actor_id, u.name AS actor_name, u.email AS actor_email,
+              s.name AS subject_name, s.email AS subject_email,
               count(*) OVER () AS total
          FROM audit_events e
          LEFT JOIN users u ON u.id = e.actor_id
+         -- subject_id is text (subjects of other kinds need not be UUIDs): compare as text.
+         LEFT JOIN users s ON e.subject_type = 'user' AND s.id::text = e.subject_id
         ${where.length ? `WHERE ${where.join(' AND ')}` : ''}
         ORDER BY e.at DESC, e.id DESC
         LIMIT $${params.length - 1} OFFSET $${params.length}`,
@@ -86,6 +91,10 @@ export class AuditService {
             ? { id: row.actor_id, name: row.actor_name, email: row.actor_email }
             : null,
         action: row.action,
+        subject:
+          row.subject_id && row.subject_name && row.subject_email
+            ? { id: row.subject_id, name: row.subject_name, email: row.subject_email }
+            : null,
         subjectType: row.subject_type,
         subjectId: row.subject_id,
         details: row.details,

@@ -1,5 +1,6 @@
 import { ApiProperty } from '@nestjs/swagger';
 
+/** An account named in an entry: who acted, or whom it is about. */
 export class AuditActorResponse {
   @ApiProperty()
   id: string;
@@ -24,6 +25,13 @@ export class AuditEventResponse {
 
   @ApiProperty({ example: 'auth.sign-in' })
   action: string;
+
+  @ApiProperty({
+    type: AuditActorResponse,
+    nullable: true,
+    description: 'The account the event is about, when it is about one',
+  })
+  subject: AuditActorResponse | null;
 
   @ApiProperty({ nullable: true, type: String, example: 'user' })
   subjectType: string | null;

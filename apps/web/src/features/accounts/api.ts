@@ -50,6 +50,8 @@ export interface AuditEvent {
   at: string;
   actor: { id: string; name: string; email: string } | null;
   action: string;
+  /** The account the entry is about, when it is about one. */
+  subject: { id: string; name: string; email: string } | null;
   subjectType: string | null;
   subjectId: string | null;
   details: Record<string, unknown>;

@@ -34,6 +34,13 @@ const columns = helper.columns([
     header: 'What',
     cell: (info) => ACTION_LABELS[info.getValue()] ?? info.getValue(),
   }),
+  helper.accessor('subject', {
+    header: 'About',
+    cell: (info) => {
+      const subject = info.getValue();
+      return subject ? <Text title={subject.email}>{subject.name}</Text> : null;
+    },
+  }),
   helper.accessor('details', {
     header: 'Details',
     cell: (info) => {

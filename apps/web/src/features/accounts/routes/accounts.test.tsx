@@ -50,6 +50,7 @@ function serve(items: Account[] = [ada, bo]) {
           at: '2026-02-01T10:00:00Z',
           actor: { id: 'admin-1', name: 'Admin Person', email: 'admin@example.org' },
           action: 'user.roles-changed',
+          subject: { id: 'a-1', name: 'Ada Quinterra', email: 'ada@example.org' },
           subjectType: 'user',
           subjectId: 'a-1',
           details: { from: [], to: ['staff'] },
@@ -149,6 +150,7 @@ describe('Accounts', { timeout: 30_000 }, () => {
     expect(within(log).getByText('Roles changed')).toBeInTheDocument();
     expect(within(log).getByText('Admin Person')).toBeInTheDocument();
     expect(within(log).getByText('203.0.113.9')).toBeInTheDocument();
+    expect(within(log).getByText('Ada Quinterra')).toBeInTheDocument();
     expect(within(log).getByText('from: —; to: staff')).toBeInTheDocument();
   });
 
