@@ -19,6 +19,7 @@ import { AuthService } from './auth.service.js';
 import { csrf } from './csrf.js';
 import { AcceptedResponse } from './dto/accepted.response.js';
 import { ChangePasswordDto } from './dto/change-password.dto.js';
+import { CsrfResponse } from './dto/csrf.response.js';
 import { LoginDto } from './dto/login.dto.js';
 import { MeResponse } from './dto/me.response.js';
 import { PasswordResetConfirmDto, PasswordResetRequestDto } from './dto/password-reset.dto.js';
@@ -49,7 +50,8 @@ export class AuthController {
 
   @Public()
   @Get('csrf')
-  csrfToken(@Req() req: Request): { token: string } {
+  @ApiOkResponse({ type: CsrfResponse })
+  csrfToken(@Req() req: Request): CsrfResponse {
     return { token: csrf.generateToken(req) };
   }
 
