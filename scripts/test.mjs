@@ -117,6 +117,7 @@ const vitest = (/** @type {string} */ config) => [
   '--reporter=default',
   '--reporter=json',
   '--outputFile.json={report}',
+  ...(filter ? [filter] : []),
 ];
 const jest = (/** @type {string} */ config, /** @type {string[]} */ extra = []) => [
   'npx',
@@ -126,6 +127,7 @@ const jest = (/** @type {string} */ config, /** @type {string[]} */ extra = []) 
   '--json',
   '--outputFile={report}',
   ...extra,
+  ...(filter ? [filter] : []),
 ];
 
 try {
