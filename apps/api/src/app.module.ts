@@ -12,6 +12,7 @@ import { RolesGuard } from './common/guards/roles.guard.js';
 import { SessionAuthGuard } from './common/guards/session-auth.guard.js';
 import { ConfigModule } from './config/config.module.js';
 import { DatabaseModule } from './database/database.module.js';
+import { DocumentsModule } from './documents/documents.module.js';
 import { HealthModule } from './health/health.module.js';
 import { MailModule } from './mail/mail.module.js';
 import { ObservatoryModule } from './observatory/observatory.module.js';
@@ -31,6 +32,7 @@ import { UsersModule } from './users/users.module.js';
     ObservatoryModule,
     CallsModule,
     CalculatorModule,
+    DocumentsModule,
   ],
   providers: [
     // Order matters: CSRF, then sign-in, then roles.

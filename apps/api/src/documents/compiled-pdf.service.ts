@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { PDFArray, PDFDict, PDFDocument, PDFName, type PDFPage } from 'pdf-lib';
+import { PDFArray, PDFDict, PDFDocument, PDFName, type PDFPage, PDFRef } from 'pdf-lib';
 import type { ProposalSnapshot } from '../proposals/proposal-snapshot.js';
 import { drawCover } from './cover-sheet.js';
 import { pdfFonts } from './pdf-fonts.js';
@@ -49,7 +49,11 @@ function removeAuthorship(page: PDFPage): void {
   }
 }
 
+/** The Info dictionary is the one source: pdfkit's XMP packet (its own name, today's date) goes. */
 function setMetadata(pdf: PDFDocument, s: ProposalSnapshot): void {
+  const xmp = pdf.catalog.get(PDFName.of('Metadata'));
+  if (xmp instanceof PDFRef) pdf.context.delete(xmp);
+  pdf.catalog.delete(PDFName.of('Metadata'));
   const submitted = new Date(s.submittedAt);
   pdf.setTitle(`${s.reference}: ${s.title}`, { showInWindowTitleBar: true });
   pdf.setSubject(`Proposal to call ${s.call.code} (${s.call.title}), version ${s.version}`);

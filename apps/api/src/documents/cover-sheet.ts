@@ -28,13 +28,13 @@ const COLOR = {
 };
 
 const STYLE = {
-  kicker: { size: 7.5, weight: 600, color: COLOR.brand, characterSpacing: 1.1 },
+  kicker: { size: 7.5, weight: 600, color: COLOR.brand, characterSpacing: 0.5 },
   reference: { size: 21, mono: true, color: COLOR.ink },
   title: { size: 16.5, weight: 600, color: COLOR.ink, lineGap: 2 },
   subtitle: { size: 9.5, weight: 400, color: COLOR.muted },
-  label: { size: 6.6, weight: 600, color: COLOR.muted, characterSpacing: 0.7 },
+  label: { size: 6.6, weight: 600, color: COLOR.muted, characterSpacing: 0.4 },
   value: { size: 9.5, weight: 500, color: COLOR.ink, lineGap: 1 },
-  section: { size: 7.5, weight: 700, color: COLOR.brand, characterSpacing: 1.1 },
+  section: { size: 7.5, weight: 700, color: COLOR.brand, characterSpacing: 0.5 },
   body: { size: 9.5, weight: 400, color: COLOR.body, lineGap: 2.6 },
   head: { size: 6.8, weight: 600, color: COLOR.muted, lineGap: 0.5 },
   cell: { size: 8.2, weight: 400, color: COLOR.ink, lineGap: 0.8, tabular: true },

@@ -121,25 +121,31 @@ export function pdfFonts(): PdfFonts {
 const covers = (face: FontFace, codePoint: number) => face.font.hasGlyphForCodePoint(codePoint);
 
 /**
- * Splits text into runs, each drawn by the first face meant for its characters. A character no
- * face has is drawn as its letter without accents when one of the faces has that ("ǅ" → "D"…),
- * else as "?", so a cover never shows an empty box.
+ * Splits text into runs, each drawn by the first face that has its characters. A character no
+ * face has is drawn as its compatibility form when the faces have that ("ǅ" → "Dž"), else as its
+ * letters without accents, else as "?", so a cover never shows an empty box.
  */
 export function splitRuns(text: string, faces: FontFace[]): TextRun[] {
-  const runs: TextRun[] = [];
   const primary = faces[0];
   if (!primary) throw new Error('splitRuns needs at least one face');
-  for (const char of text.normalize('NFC')) {
-    let face = faces.find((f) => covers(f, char.codePointAt(0) ?? 0));
-    let drawn = char;
-    if (!face) {
-      drawn = char.normalize('NFKD').replace(/\p{M}/gu, '') || '?';
-      face = [...drawn].every((c) => covers(primary, c.codePointAt(0) ?? 0)) ? primary : undefined;
-      if (!face) [drawn, face] = ['?', primary];
-    }
+  const faceFor = (char: string) => faces.find((f) => covers(f, char.codePointAt(0) ?? 0));
+  const drawable = (s: string) => s !== '' && [...s].every((c) => faceFor(c));
+  const runs: TextRun[] = [];
+  const push = (face: FontFace, char: string) => {
     const last = runs[runs.length - 1];
-    if (last && last.face === face) last.text += drawn;
-    else runs.push({ face, text: drawn });
+    if (last && last.face === face) last.text += char;
+    else runs.push({ face, text: char });
+  };
+  for (const char of text.normalize('NFC')) {
+    const face = faceFor(char);
+    if (face) {
+      push(face, char);
+      continue;
+    }
+    const substitute = [char.normalize('NFKC'), char.normalize('NFKD').replace(/\p{M}/gu, '')].find(
+      drawable,
+    );
+    for (const c of substitute ?? '?') push(faceFor(c) ?? primary, c);
   }
   return runs;
 }

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { HttpStatus, Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
-import { EncryptedPDFError, PDFDocument } from 'pdf-lib';
+import { PDFDocument } from 'pdf-lib';
 import { type EntityManager, IsNull, type Repository } from 'typeorm';
 import { Clock } from '../common/clock.js';
 import { AppError, notFound } from '../common/errors/app-error.js';
@@ -212,36 +212,45 @@ export class ScienceCaseService {
 
 /**
  * The page count, judging the bytes: a PDF header where the format puts it, then a document
- * pdf-lib can load and walk. pdf-lib refuses encrypted files unless told to ignore encryption,
- * which is how they are recognised; its pages could not be copied into the compiled PDF anyway.
+ * pdf-lib can load and walk. An encrypted PDF is refused whether or not it needs a password to
+ * open: its pages could not be copied into the compiled PDF. pdf-lib tells encryption by
+ * `isEncrypted` when told to ignore it (its EncryptedPDFError, compiled to ES5, is a plain Error
+ * to `instanceof`).
  */
 async function countPages(bytes: Buffer): Promise<number> {
   // The header may follow a little junk: readers look for it in the first 1024 bytes.
-  const header = bytes.subarray(0, 1024).indexOf('%PDF-');
-  if (header < 0) {
+  if (bytes.subarray(0, 1024).indexOf('%PDF-') < 0) {
     throw refuse(
       HttpStatus.UNSUPPORTED_MEDIA_TYPE,
       'NOT_A_PDF',
       'The file is not a PDF: it does not start with a PDF header.',
     );
   }
-  let pages: number;
-  try {
-    const pdf = await PDFDocument.load(bytes, { updateMetadata: false });
-    pages = pdf.getPageCount();
-  } catch (err) {
-    if (err instanceof EncryptedPDFError) {
-      throw refuse(
-        HttpStatus.UNPROCESSABLE_ENTITY,
-        'PDF_ENCRYPTED',
-        'The PDF is encrypted or password-protected; upload a copy saved without protection.',
-      );
-    }
-    throw refuse(
+  const encrypted = () =>
+    refuse(
+      HttpStatus.UNPROCESSABLE_ENTITY,
+      'PDF_ENCRYPTED',
+      'The PDF is encrypted or password-protected; upload a copy saved without protection.',
+    );
+  const unreadable = () =>
+    refuse(
       HttpStatus.UNSUPPORTED_MEDIA_TYPE,
       'NOT_A_PDF',
       'The file starts like a PDF but cannot be read as one (damaged or incomplete?).',
     );
+  let pdf: PDFDocument;
+  try {
+    pdf = await PDFDocument.load(bytes, { ignoreEncryption: true, updateMetadata: false });
+  } catch {
+    // Encrypted objects can trip the parser before it reaches the trailer's /Encrypt.
+    throw bytes.indexOf('/Encrypt') >= 0 ? encrypted() : unreadable();
+  }
+  if (pdf.isEncrypted) throw encrypted();
+  let pages: number;
+  try {
+    pages = pdf.getPageCount();
+  } catch {
+    throw unreadable();
   }
   if (pages === 0) {
     throw refuse(HttpStatus.UNPROCESSABLE_ENTITY, 'PDF_HAS_NO_PAGES', 'The PDF has no pages.');
@@ -281,10 +290,10 @@ export function sanitiseFilename(name: string): string {
   const base = name.split(/[/\\]/).pop() ?? '';
   let stem = base
     .normalize('NFC')
-    .replace(/[\p{Cc}\p{Cf}\p{Cs}\p{Co}\p{Cn}\u2028\u2029]/gu, '')
-    .replace(/[:*?"<>|]/g, '_')
     .replace(/\s+/g, ' ')
-    .replace(/^[\s.]+|[\s.]+$/g, '')
+    .replace(/[\p{Cc}\p{Cf}\p{Cs}\p{Co}\p{Cn}]/gu, '')
+    .replace(/[:*?"<>|]/g, '_')
+    .trim()
     .replace(/\.pdf$/i, '')
     .replace(/^[\s.]+|[\s.]+$/g, '');
   stem = [...stem].slice(0, MAX_STEM_LENGTH).join('').trim();
