@@ -31,6 +31,14 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
               ...lazyRoute(queryClient, () => import('./routes/desk'), audienceOf(paths.desk)),
             },
             {
+              path: paths.calculator,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/calculator/routes/calculator'),
+                audienceOf(paths.calculator),
+              ),
+            },
+            {
               path: paths.calls,
               ...lazyRoute(queryClient, () => import('@/features/calls/routes/call-list')),
             },
