@@ -47,6 +47,31 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
               ...lazyRoute(queryClient, () => import('@/features/calls/routes/call-detail')),
             },
             {
+              path: paths.proposals,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/proposals/routes/proposal-list'),
+                audienceOf(paths.proposals),
+              ),
+            },
+            {
+              path: paths.newProposal,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/proposals/routes/new-proposal'),
+                audienceOf(paths.proposals),
+              ),
+            },
+            {
+              // The optional segment is the editor's section: /proposals/SP27-0014/observations.
+              path: `${paths.proposals}/:reference/:section?`,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/proposals/routes/proposal-editor'),
+                audienceOf(paths.proposals),
+              ),
+            },
+            {
               path: paths.operations,
               ...lazyRoute(
                 queryClient,

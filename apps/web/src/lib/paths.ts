@@ -7,6 +7,7 @@ export const paths = {
   calls: '/calls',
   calculator: '/calculator',
   proposals: '/proposals',
+  newProposal: '/proposals/new',
   reviewing: '/reviewing',
   standing: '/standing',
   operations: '/operations',
@@ -20,6 +21,16 @@ export const paths = {
 
 /** A call's public page. */
 export const callHref = (code: string) => `${paths.calls}/${encodeURIComponent(code)}`;
+
+/** A proposal's editor, at one of its sections (Overview when none is named). */
+export const proposalHref = (reference: string, section?: string) =>
+  `${paths.proposals}/${encodeURIComponent(reference)}${section ? `/${section}` : ''}`;
+
+/** The form that starts a proposal, with the call chosen when one is named. */
+export const newProposalHref = (callCode?: string) =>
+  callCode
+    ? `${paths.newProposal}?${new URLSearchParams({ call: callCode }).toString()}`
+    : paths.newProposal;
 
 /** Staff's form for changing a call. */
 export const editCallHref = (code: string) =>
