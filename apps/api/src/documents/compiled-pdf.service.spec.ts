@@ -79,6 +79,17 @@ describe('CompiledPdfService.compile', () => {
     expect(uncompressed.toString('latin1')).not.toMatch(/Quill/);
   });
 
+  it('gives the same bytes for the same snapshot and science case', async () => {
+    // Also shows that word layouts shared between documents change nothing.
+    const snapshot = sampleSnapshot({ observations: 5 });
+    const first = await service.compile(snapshot, scienceCase);
+    const second = await service.compile(sampleSnapshot({ observations: 5 }), scienceCase);
+    expect(second.equals(first)).toBe(true);
+    expect((await service.compile({ ...snapshot, version: 3 }, scienceCase)).equals(first)).toBe(
+      false,
+    );
+  });
+
   it('names the PI as author when the call is not anonymous', async () => {
     const pdf = await PDFDocument.load(await service.compile(sampleSnapshot(), null));
     expect(pdf.getAuthor()).toBe('Ada Quill and 3 more');

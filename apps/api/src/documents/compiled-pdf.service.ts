@@ -1,4 +1,4 @@
-import { Injectable } from '@nestjs/common';
+import { Injectable, type OnModuleInit } from '@nestjs/common';
 import { PDFArray, PDFDict, PDFDocument, PDFName, type PDFPage, PDFRef } from 'pdf-lib';
 import type { ProposalSnapshot } from '../proposals/proposal-snapshot.js';
 import { drawCover } from './cover-sheet.js';
@@ -10,7 +10,12 @@ import { pdfFonts } from './pdf-fonts.js';
  * version.
  */
 @Injectable()
-export class CompiledPdfService {
+export class CompiledPdfService implements OnModuleInit {
+  /** Reads the fonts at start: a missing file fails the start, not a submission. */
+  onModuleInit(): void {
+    pdfFonts();
+  }
+
   /**
    * `scienceCase` must be a PDF that ScienceCaseService.inspect() accepted (an unreadable one
    * throws: it is the server's data, not the user's input). In an anonymous call

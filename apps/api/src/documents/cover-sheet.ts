@@ -84,6 +84,9 @@ export async function drawCover(
     bufferPages: true,
     lang: 'en',
     pdfVersion: '1.7',
+    // The file's identifier derives from its creation date: the submission time makes the same
+    // snapshot give the same bytes.
+    info: { CreationDate: validDate(snapshot.submittedAt) ?? new Date(0) },
   });
   const chunks: Buffer[] = [];
   doc.on('data', (chunk: Buffer) => chunks.push(chunk));
@@ -308,6 +311,9 @@ class Cover {
     );
     if (items.length === 0) return;
     this.section('Calculator findings', 30);
+    const note = 'The numbers are rows of the Observations table.';
+    this.ts.text(note, MARGIN.left, this.y, { ...STYLE.cell, color: COLOR.muted }, WIDTH);
+    this.y += this.ts.heightOf(note, WIDTH, STYLE.cell) + 5;
     const labelWidth = 78;
     for (const { n, check } of items) {
       const level = check.level.charAt(0).toUpperCase() + check.level.slice(1);
@@ -543,6 +549,11 @@ const hoursFormat = new Intl.NumberFormat('en-GB', {
   maximumFractionDigits: 2,
 });
 const hours = (h: number) => (Number.isFinite(h) ? hoursFormat.format(h) : '—');
+
+function validDate(iso: string): Date | null {
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? null : d;
+}
 
 /** "2027-03-14 16:05 UTC". */
 function utc(iso: string): string {

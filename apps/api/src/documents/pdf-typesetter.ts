@@ -3,6 +3,19 @@ import { type FontFace, type PdfFonts, type SansWeight, splitRuns } from './pdf-
 
 type Doc = InstanceType<typeof PDFDocument>;
 
+/** What pdfkit keeps of the current font: the layout of each word it has shaped. */
+interface EmbeddedFontState {
+  layoutCache?: Record<string, unknown>;
+}
+
+/**
+ * Word layouts shared by every document, per font. pdfkit shapes each word once per document
+ * (kerning, ligatures: most of a cover's CPU time); a layout depends only on the font and the
+ * word, so covers can share them. Bounded: a cache past 20,000 words starts afresh.
+ */
+const sharedLayouts = new WeakMap<object, Record<string, unknown>>();
+const MAX_SHARED_WORDS = 20_000;
+
 export interface TextStyle {
   size: number;
   weight?: SansWeight;
@@ -22,6 +35,8 @@ export interface TextStyle {
  * the first one lacks (see pdf-fonts.ts). Positions are absolute; callers lay out the page.
  */
 export class Typesetter {
+  private readonly adopted = new Set<FontFace>();
+
   constructor(
     readonly doc: Doc,
     private readonly fonts: PdfFonts,
@@ -30,6 +45,25 @@ export class Typesetter {
     // pdfkit also takes an already parsed fontkit font (it checks for `layout`), though its
     // types list byte sources only.
     for (const face of faces) doc.registerFont(face.name, face.font as unknown as Buffer);
+  }
+
+  /** Makes `face` the current font, using the shared word layouts. */
+  private use(face: FontFace): Doc {
+    this.doc.font(face.name);
+    if (!this.adopted.has(face)) {
+      this.adopted.add(face);
+      // pdfkit's own field (not in its types); without it, each document simply shapes anew.
+      const current = (this.doc as unknown as { _font?: EmbeddedFontState })._font;
+      if (current?.layoutCache) {
+        let shared = sharedLayouts.get(face.font);
+        if (!shared || Object.keys(shared).length > MAX_SHARED_WORDS) {
+          shared = Object.create(null) as Record<string, unknown>;
+          sharedLayouts.set(face.font, shared);
+        }
+        current.layoutCache = shared;
+      }
+    }
+    return this.doc;
   }
 
   private faces(style: TextStyle): FontFace[] {
@@ -42,26 +76,22 @@ export class Typesetter {
       lineGap: style.lineGap ?? 0,
       align: style.align ?? 'left',
       characterSpacing: style.characterSpacing ?? 0,
-      features: style.tabular ? ['tnum'] : [],
+      // Only when asked: pdfkit caches the layout of words only for text without `features`
+      // (even an empty list turns the cache off).
+      ...(style.tabular ? { features: ['tnum' as const] } : {}),
     };
   }
 
   /** The height `text` takes in `width` (measured in the first face: the subsets share metrics). */
   heightOf(text: string, width: number, style: TextStyle): number {
     const face = this.faces(style)[0]!;
-    return this.doc
-      .font(face.name)
-      .fontSize(style.size)
-      .heightOfString(text, this.options(style, width));
+    return this.use(face).fontSize(style.size).heightOfString(text, this.options(style, width));
   }
 
   widthOf(text: string, style: TextStyle): number {
     let width = 0;
     for (const run of splitRuns(text, this.faces(style))) {
-      width += this.doc
-        .font(run.face.name)
-        .fontSize(style.size)
-        .widthOfString(run.text, this.options(style));
+      width += this.use(run.face).fontSize(style.size).widthOfString(run.text, this.options(style));
     }
     return width;
   }
@@ -72,7 +102,7 @@ export class Typesetter {
     const runs = splitRuns(text, this.faces(style));
     const options = this.options(style, width);
     if (runs.length <= 1) {
-      doc.font(runs[0]?.face.name ?? this.faces(style)[0]!.name).text(runs[0]?.text ?? '', x, y, {
+      this.use(runs[0]?.face ?? this.faces(style)[0]!).text(runs[0]?.text ?? '', x, y, {
         ...options,
         lineBreak: width !== undefined,
       });
@@ -80,7 +110,7 @@ export class Typesetter {
       // pdfkit keeps wrapping across font changes when each piece is `continued`.
       runs.forEach((run, i) => {
         const more = { ...options, lineBreak: width !== undefined, continued: i < runs.length - 1 };
-        doc.font(run.face.name);
+        this.use(run.face);
         if (i === 0) doc.text(run.text, x, y, more);
         else doc.text(run.text, more);
       });
