@@ -108,6 +108,27 @@ describe('CompiledPdfService.compile', () => {
     );
   });
 
+  it('flows a maximal abstract and a large team over pages, each with its footer', async () => {
+    const team = Array.from({ length: 30 }, (_, i) => ({
+      ...SAMPLE_TEAM[i % SAMPLE_TEAM.length]!,
+      name: `Member ${i + 1} Ngũgĩ-Łukasik`,
+      affiliation: 'Department of Unusually Long Names, '.repeat(3),
+      role: i === 0 ? ('pi' as const) : ('coi' as const),
+    }));
+    const abstract = `${SCIENCE_PROSE}\n\n`.repeat(20).slice(0, 20_000);
+    const compiled = await service.compile(
+      sampleSnapshot({ team, abstract, observations: 12, title: 'T'.repeat(300) }),
+      scienceCase,
+    );
+    const texts = await extractPageTexts(compiled, 20_000);
+    const covers = texts.length - 4;
+    expect(covers).toBeGreaterThanOrEqual(4);
+    texts.slice(0, covers).forEach((text, i) => {
+      expect(text).toContain(`Page ${i + 1} of ${texts.length}`);
+    });
+    expect(texts.join(' ')).toContain('Member 30 Ngũgĩ-Łukasik');
+  });
+
   it('keeps names beyond Latin-1 as they are (embedded glyphs with their Unicode)', async () => {
     const text = await textOf(await service.compile(sampleSnapshot(), null));
     expect(text).toContain('Zoë Ngũgĩ-Łukasik');
