@@ -16,6 +16,7 @@ import { DocumentsModule } from './documents/documents.module.js';
 import { HealthModule } from './health/health.module.js';
 import { MailModule } from './mail/mail.module.js';
 import { ObservatoryModule } from './observatory/observatory.module.js';
+import { ProposalsModule } from './proposals/proposals.module.js';
 import { UsersModule } from './users/users.module.js';
 
 @Module({
@@ -33,6 +34,7 @@ import { UsersModule } from './users/users.module.js';
     CallsModule,
     CalculatorModule,
     DocumentsModule,
+    ProposalsModule,
   ],
   providers: [
     // Order matters: CSRF, then sign-in, then roles.

@@ -49,7 +49,10 @@ export interface SnapshotObservation {
   spectralResolutionKHz: number | null;
   polarizations: 1 | 2;
   rmsGoalMicroJy: number | null;
+  /** Absent in snapshots made before it was recorded. */
+  resolutionGoalArcsec?: number | null;
   hoursAsked: number;
   result: ObservationResult;
-  checks: Check[];
+  /** The calculator's checks and the server's own about the call (their codes are wider). */
+  checks: Array<Omit<Check, 'code'> & { code: string }>;
 }
