@@ -37,7 +37,8 @@ const STYLE = {
   section: { size: 7.5, weight: 700, color: COLOR.brand, characterSpacing: 0.5 },
   body: { size: 9.5, weight: 400, color: COLOR.body, lineGap: 2.6 },
   head: { size: 6.8, weight: 600, color: COLOR.muted, lineGap: 0.5 },
-  cell: { size: 8.2, weight: 400, color: COLOR.ink, lineGap: 0.8, tabular: true },
+  // IBM Plex Sans' figures are tabular by default, so numbers line up in columns as they are.
+  cell: { size: 8.2, weight: 400, color: COLOR.ink, lineGap: 0.8 },
   small: { size: 7, weight: 400, color: COLOR.muted },
 } satisfies Record<string, TextStyle>;
 

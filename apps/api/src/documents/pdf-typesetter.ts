@@ -26,8 +26,6 @@ export interface TextStyle {
   align?: 'left' | 'right' | 'center';
   /** Extra space between letters, for small capitals-like labels. */
   characterSpacing?: number;
-  /** Tabular figures, so digits line up in columns. */
-  tabular?: boolean;
 }
 
 /**
@@ -70,15 +68,13 @@ export class Typesetter {
     return style.mono ? this.fonts.mono : this.fonts.sans[style.weight ?? 400];
   }
 
+  /** No `features` here: pdfkit caches word layouts only for text without them (even `[]`). */
   private options(style: TextStyle, width?: number): PDFKit.Mixins.TextOptions {
     return {
       width,
       lineGap: style.lineGap ?? 0,
       align: style.align ?? 'left',
       characterSpacing: style.characterSpacing ?? 0,
-      // Only when asked: pdfkit caches the layout of words only for text without `features`
-      // (even an empty list turns the cache off).
-      ...(style.tabular ? { features: ['tnum' as const] } : {}),
     };
   }
 
