@@ -1,5 +1,13 @@
 /** Invented records for the proposals feature's component tests. */
-import type { ChecksReport, ObservatorySetup, Proposal, ProposalSummary, Target } from '../api';
+import { evaluateObservation } from '@skyhours/calc';
+import type {
+  ChecksReport,
+  Observation,
+  ObservatorySetup,
+  Proposal,
+  ProposalSummary,
+  Target,
+} from '../api';
 
 export const REFERENCE = 'SP27-0014';
 export const BASE = `/api/proposals/${REFERENCE}`;
@@ -142,4 +150,54 @@ export function makeSummary(overrides: Partial<ProposalSummary> = {}): ProposalS
     updatedAt: '2027-01-10T10:00:00Z',
     ...overrides,
   };
+}
+
+/** A stored observation of `target` with the library's numbers, as the server keeps them. */
+export function makeObservation(overrides: Partial<Observation> = {}): Observation {
+  const band = observatory.bands[0]!;
+  const configuration = observatory.configurations[0]!;
+  const base = {
+    id: 'o-1',
+    targetId: target.id,
+    bandId: band.id,
+    configurationId: configuration.id,
+    frequencyGHz: 1.4,
+    bandwidthMHz: 500,
+    spectralResolutionKHz: null,
+    polarizations: 2 as const,
+    rmsGoalMicroJy: 30,
+    resolutionGoalArcsec: null,
+    hoursAsked: 6,
+    ...overrides,
+  };
+  const result = evaluateObservation({
+    array: {
+      antennas: observatory.antennas,
+      dishDiameterM: observatory.dishDiameterM,
+      latitudeDeg: observatory.latitudeDeg,
+      longitudeDeg: observatory.longitudeDeg,
+      elevationLimitDeg: observatory.elevationLimitDeg,
+      correlatorEfficiency: observatory.correlatorEfficiency,
+      overheadFraction: observatory.overheadFraction,
+      beamFactor: observatory.beamFactor,
+    },
+    configuration: {
+      shortestBaselineM: configuration.shortestBaselineM,
+      longestBaselineM: configuration.longestBaselineM,
+    },
+    band: {
+      minGHz: band.minGHz,
+      maxGHz: band.maxGHz,
+      tsysK: band.tsysK,
+      apertureEfficiency: band.apertureEfficiency,
+      maxBandwidthMHz: band.maxBandwidthMHz,
+    },
+    frequencyGHz: base.frequencyGHz ?? 1.4,
+    bandwidthMHz: base.bandwidthMHz,
+    polarizations: base.polarizations,
+    target: { raDeg: target.raDeg, decDeg: target.decDeg, extentArcsec: target.extentArcsec },
+    rmsGoalMicroJy: base.rmsGoalMicroJy,
+    onSourceHours: base.hoursAsked / (1 + observatory.overheadFraction),
+  });
+  return { ...base, result, checks: result.checks, ...overrides };
 }
