@@ -1,5 +1,10 @@
+import { randomUUID } from 'node:crypto';
 import fc from 'fast-check';
 import request from 'supertest';
+import type { DataSource } from 'typeorm';
+import { Configuration } from '../src/observatory/entities/configuration.entity.js';
+import { Observatory } from '../src/observatory/entities/observatory.entity.js';
+import { ReceiverBand } from '../src/observatory/entities/receiver-band.entity.js';
 import { createTestApp, randomTestIp, type TestApp } from './support/app.js';
 
 /*
@@ -50,6 +55,43 @@ function bodyWith(changes: Record<string, unknown>): Body {
 }
 
 const wrapHours = (h: number) => ((h % 24) + 24) % 24;
+
+/** A stored observatory with one configuration and one band, holding the base body's numbers. */
+async function storeObservatory(dataSource: DataSource) {
+  const body = baseBody();
+  const observatory = await dataSource.getRepository(Observatory).save({
+    ...(body.array as object),
+    name: `Calculator Test Array ${randomUUID().slice(0, 8)}`,
+    elevationM: 500,
+    timeZone: 'UTC',
+  });
+  const configuration = await dataSource.getRepository(Configuration).save({
+    ...(body.configuration as object),
+    observatoryId: observatory.id,
+    name: 'test layout',
+    inUseFrom: '2026-01-01',
+    inUseTo: null,
+  });
+  const band = await dataSource.getRepository(ReceiverBand).save({
+    ...(body.band as object),
+    observatoryId: observatory.id,
+    name: 'test band',
+    ieeeLetter: 'L',
+    polarizations: [1, 2],
+  });
+  return { observatory, configuration, band };
+}
+
+/** The base body with its array, configuration and band named by id instead. */
+function bodyByIds(ids: { observatory?: string; configuration?: string; band?: string }): Body {
+  const { array: _array, configuration: _configuration, band: _band, ...rest } = baseBody();
+  return {
+    ...rest,
+    ...(ids.observatory ? { observatoryId: ids.observatory } : {}),
+    ...(ids.configuration ? { configurationId: ids.configuration } : {}),
+    ...(ids.band ? { bandId: ids.band } : {}),
+  };
+}
 
 describe('POST /api/calculator', () => {
   let t: TestApp;
@@ -383,6 +425,74 @@ describe('POST /api/calculator', () => {
     });
   });
 
+  describe('stored records named by id', () => {
+    it('gives the same answer as the same numbers inline', async () => {
+      const { observatory, configuration, band } = await storeObservatory(t.dataSource);
+      const inline = await post(baseBody());
+      const byIds = await post(
+        bodyByIds({
+          observatory: observatory.id,
+          configuration: configuration.id,
+          band: band.id,
+        }),
+      );
+      expect(byIds.status).toBe(200);
+      expect(byIds.body).toEqual(inline.body);
+
+      // Mixed: the stored array and band with a configuration of one's own.
+      const mixed = await post({
+        ...bodyByIds({ observatory: observatory.id, band: band.id }),
+        configuration: { shortestBaselineM: 30, longestBaselineM: 6400 },
+      });
+      expect(mixed.status).toBe(200);
+      expect(mixed.body.resolutionArcsec).toBeCloseTo(inline.body.resolutionArcsec / 2, 12);
+    });
+
+    it('answers 404 naming each id that matches nothing', async () => {
+      const { observatory } = await storeObservatory(t.dataSource);
+      const res = await post(
+        bodyByIds({ observatory: observatory.id, configuration: randomUUID(), band: randomUUID() }),
+      );
+      expect(res.status).toBe(404);
+      expect(res.body).toMatchObject({ statusCode: 404, code: 'NOT_FOUND' });
+      expect((res.body.issues as { path: string }[]).map((i) => i.path)).toEqual([
+        'configurationId',
+        'bandId',
+      ]);
+    });
+
+    it('refuses a part given twice or not at all, a malformed id and a foreign record', async () => {
+      const first = await storeObservatory(t.dataSource);
+      const second = await storeObservatory(t.dataSource);
+      const paths = (res: request.Response) =>
+        (res.body.issues as { path: string }[]).map((i) => i.path).sort();
+
+      const twice = await post({ ...baseBody(), observatoryId: first.observatory.id });
+      expect(twice.status).toBe(400);
+      expect(paths(twice)).toEqual(['array', 'observatoryId']);
+
+      const none = await post(bodyByIds({ configuration: first.configuration.id }));
+      expect(none.status).toBe(400);
+      expect(paths(none)).toEqual(['array', 'band']);
+      expect(none.body.issues[0].message).toMatch(/observatoryId/);
+
+      // The DTO refuses the malformed id before the rest is looked at.
+      const malformed = await post(bodyByIds({ observatory: first.observatory.id, band: 'L' }));
+      expect(malformed.status).toBe(400);
+      expect(paths(malformed)).toEqual(['bandId']);
+
+      const foreign = await post(
+        bodyByIds({
+          observatory: first.observatory.id,
+          configuration: second.configuration.id,
+          band: first.band.id,
+        }),
+      );
+      expect(foreign.status).toBe(400);
+      expect(paths(foreign)).toEqual(['configurationId']);
+    });
+  });
+
   it('needs no session and no CSRF token, although other writes do', async () => {
     const ip = randomTestIp();
     const http = request(t.app.getHttpServer());
@@ -420,6 +530,9 @@ describe('POST /api/calculator with random bodies', () => {
           'line',
           'line.restGHz',
           'line.redshift',
+          'observatoryId',
+          'configurationId',
+          'bandId',
         ),
         fc.oneof(
           fc.jsonValue(),

@@ -1,6 +1,7 @@
 import { Body, Controller, HttpCode, Post } from '@nestjs/common';
 import {
   ApiBadRequestResponse,
+  ApiNotFoundResponse,
   ApiOkResponse,
   ApiTags,
   ApiTooManyRequestsResponse,
@@ -34,8 +35,9 @@ export class CalculatorController {
   @HttpCode(200)
   @ApiOkResponse({ type: CalculatorResponse, description: 'Every number and the checks' })
   @ApiBadRequestResponse({ description: 'VALIDATION_FAILED; issues name each bad field by path' })
+  @ApiNotFoundResponse({ description: 'NOT_FOUND; issues name each id that matches nothing' })
   @ApiTooManyRequestsResponse({ description: 'RATE_LIMITED: too many requests from this IP' })
-  calculate(@Body() body: CalculateDto): CalculatorResponse {
-    return CalculatorResponse.from(this.calculator.calculate(body));
+  async calculate(@Body() body: CalculateDto): Promise<CalculatorResponse> {
+    return CalculatorResponse.from(await this.calculator.calculate(body));
   }
 }

@@ -1,5 +1,6 @@
+import { applyDecorators } from '@nestjs/common';
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { IsIn, IsOptional } from 'class-validator';
+import { IsIn, IsOptional, IsUUID } from 'class-validator';
 import { IntegerField, NumberField, NestedObject, OptionalNumberField } from './fields.js';
 
 /** The body of POST /api/calculator, as SCIENCE.md "The calculator's HTTP contract" gives it. */
@@ -130,18 +131,44 @@ export class TargetDto {
   resolutionGoalArcsec?: number | null;
 }
 
+const StoredId = (what: string) =>
+  applyDecorators(
+    ApiPropertyOptional({
+      format: 'uuid',
+      description: `A stored ${what}, instead of the inline one`,
+    }),
+    IsOptional(),
+    IsUUID('all', { message: `Must be the id of a stored ${what} (a UUID).` }),
+  );
+
+/**
+ * Each of the array, the configuration and the band is given inline or named by the id of the
+ * stored record (`observatoryId`, `configurationId`, `bandId`), not both.
+ */
 export class CalculateDto {
-  @ApiProperty({ type: ArrayDto })
+  @ApiPropertyOptional({ type: ArrayDto })
+  @IsOptional()
   @NestedObject(() => ArrayDto)
-  array: ArrayDto;
+  array?: ArrayDto | null;
 
-  @ApiProperty({ type: ConfigurationDto })
+  @StoredId('observatory (its array and site)')
+  observatoryId?: string | null;
+
+  @ApiPropertyOptional({ type: ConfigurationDto })
+  @IsOptional()
   @NestedObject(() => ConfigurationDto)
-  configuration: ConfigurationDto;
+  configuration?: ConfigurationDto | null;
 
-  @ApiProperty({ type: BandDto })
+  @StoredId('configuration')
+  configurationId?: string | null;
+
+  @ApiPropertyOptional({ type: BandDto })
+  @IsOptional()
   @NestedObject(() => BandDto)
-  band: BandDto;
+  band?: BandDto | null;
+
+  @StoredId('receiver band')
+  bandId?: string | null;
 
   @ApiPropertyOptional({
     example: 1.4,
