@@ -29,6 +29,8 @@ export class ScienceCaseUploadInterceptor implements NestInterceptor {
     const limit = await this.uploads.uploadLimit(req.user as SessionUser, reference);
     const read = multer({
       storage: multer.memoryStorage(),
+      // Browsers send the file's name as raw UTF-8 (the HTML form encoding), not Latin-1.
+      defParamCharset: 'utf8',
       limits: { fileSize: limit.bytes, files: 1, fields: 5, fieldSize: 1000, parts: 6 },
     }).single('file');
     await new Promise<void>((resolve, reject) =>

@@ -4,6 +4,7 @@ import type { User } from '../../src/users/entities/user.entity.js';
 import type { TestAgent, TestApp } from './app.js';
 import { makeCall, makeObservatory, type TestObservatory } from './calls-factories.js';
 import { makeUser, TEST_PASSWORD } from './factories.js';
+import { message, messagesTo, type SinkMessage } from './mail-sink.js';
 
 /** A signed-in browser of a fresh user. */
 export async function signedIn(
@@ -129,4 +130,23 @@ export async function uploadScienceCase(
     .set('X-CSRF-Token', token)
     .field('version', String(version))
     .attach('file', bytes, { filename, contentType });
+}
+
+/** Waits until `count` messages to the address have a subject matching; answers them in full. */
+export async function mailsMatching(
+  address: string,
+  subject: RegExp,
+  count = 1,
+  timeoutMs = 15000,
+): Promise<SinkMessage[]> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const matching = (await messagesTo(address)).filter((m) => subject.test(m.subject));
+    if (matching.length >= count) return Promise.all(matching.map((m) => message(m.id)));
+    if (Date.now() > deadline)
+      throw new Error(
+        `expected ${count} message(s) to ${address} matching ${subject}, got ${matching.length}`,
+      );
+    await new Promise((r) => setTimeout(r, 150));
+  }
 }
