@@ -126,8 +126,13 @@ describe('accounts in the browser', () => {
 
     await page.goto('/sign-in');
     await page.getByRole('link', { name: 'Forgotten your password?' }).click();
+    // Wait for the new screen: the sign-in screen has an E-mail field too.
+    await page.getByRole('heading', { level: 1, name: 'Choose a new password' }).waitFor();
     await page.getByLabel('E-mail').fill(email);
+    const answer = page.waitForResponse((r) => r.url().endsWith('/api/auth/password-reset'));
     await page.getByRole('button', { name: 'Send the link' }).click();
+    // The server's answer first, so a failure says what it was.
+    expect((await answer).status()).toBe(202);
     await page.getByText('Check your inbox').waitFor();
 
     await page.goto(await linkInMail(email, '/reset-password'));
