@@ -122,6 +122,15 @@ describe('the Calculator', () => {
     await page.getByRole('textbox', { name: 'Longest baseline (m)' }).fill('');
     await page.getByRole('textbox', { name: 'Longest baseline (m)' }).blur();
     await page.getByText('One field needs a change').waitFor();
+    // The problem list leads to the field, by keyboard too.
+    const toField = page.getByRole('button', { name: 'Longest baseline (m)' });
+    await toField.focus();
+    await page.keyboard.press('Enter');
+    expect(
+      await page
+        .getByRole('textbox', { name: 'Longest baseline (m)' })
+        .evaluate((input) => input === document.activeElement),
+    ).toBe(true);
     expect(await page.locator('body').textContent()).not.toMatch(/NaN/);
     expect(await seriousAxeViolations(page)).toEqual([]);
     await screenshot(page, 'calculator-dark-narrow-invalid');

@@ -197,6 +197,7 @@ function FringeChart({ input, result }: ChartsProps) {
           domain={[-1, 1]}
           ticks={[-1, -0.5, 0, 0.5, 1]}
           tick={axisStyle}
+          tickFormatter={(y: number) => formatNumber(y, 2)}
           stroke={color.grid}
           label={axisLabel('Relative response', -90)}
           width={56}
@@ -296,10 +297,11 @@ function ElevationChart({ input, result }: ChartsProps) {
           type="number"
           domain={[floor, 90]}
           ticks={Array.from(
-            { length: Math.round((90 - floor) / 15) + 1 },
-            (_, i) => floor + 15 * i,
+            { length: Math.round((90 - floor) / 30) + 1 },
+            (_, i) => floor + 30 * i,
           )}
           tick={axisStyle}
+          tickFormatter={(y: number) => formatNumber(y, 2)}
           stroke={color.grid}
           label={axisLabel('Elevation (°)', -90)}
           width={56}
