@@ -45,7 +45,7 @@ const axisLabel = (value: string, angle = 0) => ({
   value,
   angle,
   position: angle === 0 ? ('insideBottom' as const) : ('insideLeft' as const),
-  offset: angle === 0 ? -4 : 12,
+  offset: angle === 0 ? -4 : 4,
   style: { ...axisStyle, textAnchor: 'middle' as const },
 });
 
@@ -200,7 +200,7 @@ function FringeChart({ input, result }: ChartsProps) {
           tickFormatter={(y: number) => formatNumber(y, 2)}
           stroke={color.grid}
           label={axisLabel('Relative response', -90)}
-          width={56}
+          width={64}
         />
         <Line
           dataKey="envelope"
@@ -304,7 +304,7 @@ function ElevationChart({ input, result }: ChartsProps) {
           tickFormatter={(y: number) => formatNumber(y, 2)}
           stroke={color.grid}
           label={axisLabel('Elevation (°)', -90)}
-          width={56}
+          width={64}
         />
         <ReferenceLine
           y={limit}
