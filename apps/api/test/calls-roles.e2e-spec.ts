@@ -1,4 +1,5 @@
 import { CallRolesService } from '../src/calls/call-roles.service.js';
+import { registerAndVerify } from './support/accounts.js';
 import { createTestApp, type TestAgent, type TestApp } from './support/app.js';
 import { makeCall, makeObservatory, type TestObservatory } from './support/calls-factories.js';
 import { makeUser, TEST_PASSWORD, uniqueEmail } from './support/factories.js';
@@ -86,6 +87,19 @@ describe('per-call roles', () => {
     const agent = t.agent();
     const login = await agent.signIn(email, TEST_PASSWORD);
     expect(login.body.callRoles).toEqual([{ callCode: call.code, role: 'chair' }]);
+  });
+
+  it('attaches a pending grant when the invited address registers and confirms it', async () => {
+    const call = await makeCall(t.dataSource, array);
+    const email = uniqueEmail('invited');
+    await staff.post(`/api/calls/${call.code}/roles`, { email, role: 'referee' });
+    const agent = t.agent();
+    const { password } = await registerAndVerify(agent, { email });
+    await agent.signIn(email, password);
+    const me = await agent.get('/api/auth/me').expect(200);
+    expect(me.body.callRoles).toEqual([{ callCode: call.code, role: 'referee' }]);
+    expect(me.body.roles).toContain('referee');
+    expect((await roles(call.code)).map((r) => r.state)).toEqual(['active']);
   });
 
   it('treats an unverified account as pending and tells it to verify', async () => {

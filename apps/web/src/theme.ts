@@ -146,6 +146,8 @@ const config = defineConfig({
         },
         fg: {
           DEFAULT: { value: { _light: '{colors.gray.950}', _dark: '{colors.gray.50}' } },
+          // Field error text: Chakra's default red is too light on white for WCAG AA.
+          error: { value: '{colors.blocker.fg}' },
         },
         brand: scalePalette('brand', '300', '{colors.brand.950}'),
         // The header is always night-sky, in either mode.

@@ -14,16 +14,25 @@ export type LineShift =
  * `validateObservationInput` rejects such velocities.
  */
 export function skyFrequencyHz(line: LineShift): number {
-  if ('redshift' in line) return line.restFrequencyHz / (1 + line.redshift);
-  const beta = (line.velocityKmS * 1000) / SPEED_OF_LIGHT_M_PER_S;
-  switch (line.convention) {
+  if (hasRedshift(line)) return line.restFrequencyHz / (1 + line.redshift);
+  const { restFrequencyHz, velocityKmS, convention } = line as Extract<
+    LineShift,
+    { velocityKmS: number }
+  >;
+  const beta = (velocityKmS * 1000) / SPEED_OF_LIGHT_M_PER_S;
+  switch (convention) {
     case 'radio':
-      return line.restFrequencyHz * (1 - beta);
+      return restFrequencyHz * (1 - beta);
     case 'optical':
-      return line.restFrequencyHz / (1 + beta);
+      return restFrequencyHz / (1 + beta);
     case 'relativistic':
-      return line.restFrequencyHz * Math.sqrt((1 - beta) / (1 + beta));
+      return restFrequencyHz * Math.sqrt((1 - beta) / (1 + beta));
   }
+}
+
+/** A present-but-null redshift (JSON often carries every key) means "use the velocity". */
+function hasRedshift<T extends object>(line: T): line is Extract<T, { redshift: number }> {
+  return typeof (line as { redshift?: unknown }).redshift === 'number';
 }
 
 /** Channel width in velocity, Δv = c · Δν / ν. */
@@ -45,13 +54,12 @@ export type LineInput =
 /** Sky frequency of a contract line, in GHz. */
 export function lineSkyFrequencyGHz(line: LineInput): number {
   const restFrequencyHz = line.restGHz * 1e9;
-  const shifted =
-    'redshift' in line
-      ? skyFrequencyHz({ restFrequencyHz, redshift: line.redshift })
-      : skyFrequencyHz({
-          restFrequencyHz,
-          velocityKmS: line.velocityKmS,
-          convention: line.convention,
-        });
+  const shifted = hasRedshift(line)
+    ? skyFrequencyHz({ restFrequencyHz, redshift: line.redshift })
+    : skyFrequencyHz({
+        restFrequencyHz,
+        velocityKmS: (line as Extract<LineInput, { velocityKmS: number }>).velocityKmS,
+        convention: (line as Extract<LineInput, { velocityKmS: number }>).convention,
+      });
   return shifted / 1e9;
 }

@@ -141,6 +141,17 @@ describe('evaluateObservation: the numbers', () => {
       14,
     );
     expect(sky({ restGHz: rest, redshift: 0.1 })).toBeCloseTo(rest / 1.1, 14);
+    // JSON bodies often carry every key: a null redshift beside a velocity means the velocity.
+    const withNullRedshift = {
+      restGHz: rest,
+      velocityKmS: 3000,
+      convention: 'radio',
+      redshift: null,
+    };
+    expect(sky(withNullRedshift as unknown as Parameters<typeof sky>[0])).toBeCloseTo(
+      rest * (1 - 3000 / c),
+      14,
+    );
   });
 
   it('reports a target that never sets with 24 h and no rise or set time', () => {

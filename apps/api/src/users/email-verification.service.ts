@@ -2,6 +2,7 @@ import { HttpStatus, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
 import { AuditService } from '../audit/audit.service.js';
+import { CallRolesService } from '../calls/call-roles.service.js';
 import type { RequestOrigin } from '../audit/request-origin.js';
 import { AppError } from '../common/errors/app-error.js';
 import { AppConfig } from '../config/app-config.js';
@@ -18,6 +19,7 @@ export class EmailVerificationService {
     private readonly mail: MailService,
     private readonly config: AppConfig,
     private readonly audit: AuditService,
+    private readonly callRoles: CallRolesService,
   ) {}
 
   /** A new link for an account that is not verified yet (asked for by its owner or an admin). */
@@ -83,7 +85,10 @@ export class EmailVerificationService {
         },
         manager,
       );
-      return manager.findOneByOrFail(User, { id: userId });
+      const user = await manager.findOneByOrFail(User, { id: userId });
+      // Chair and referee grants made before the address had a verified account start now.
+      await this.callRoles.attachPendingInvitations(user, manager);
+      return user;
     });
   }
 }

@@ -64,7 +64,8 @@ export class UsersService {
     );
     const roles = new Set<Role>(user.roles);
     if (emailVerified) roles.add('proposer');
-    for (const grant of callRoles) roles.add(grant.role);
+    // A per-call role counts only once the address is proven, like the proposer role.
+    if (emailVerified) for (const grant of callRoles) roles.add(grant.role);
     return {
       id: user.id,
       email: user.email,

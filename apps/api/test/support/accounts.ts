@@ -22,16 +22,25 @@ export function tokenFrom(message: SinkMessage, route: '/verify' | '/reset-passw
   return match[1];
 }
 
-/** The newest message to the address whose subject matches, once `count` messages are in. */
+/**
+ * The newest message to the address whose subject matches, once `count` messages are in and one
+ * of them matches (other mail to the same address may arrive first).
+ */
 export async function latestMessage(
   address: string,
   count: number,
   subject: RegExp,
+  timeoutMs = 15000,
 ): Promise<SinkMessage> {
-  // The sink lists the newest first.
-  const matching = (await waitForMessages(address, count)).filter((m) => subject.test(m.subject));
-  if (!matching[0]) throw new Error(`no message matching ${subject} to ${address}`);
-  return matching[0];
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    // The sink lists the newest first.
+    const list = await waitForMessages(address, count, Math.max(deadline - Date.now(), 1));
+    const match = list.find((m) => subject.test(m.subject));
+    if (match) return match;
+    if (Date.now() > deadline) throw new Error(`no message matching ${subject} to ${address}`);
+    await new Promise((r) => setTimeout(r, 150));
+  }
 }
 
 /** Registers through the API and confirms the address from the e-mailed link. */
