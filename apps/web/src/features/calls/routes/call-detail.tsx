@@ -1,11 +1,11 @@
 import { Box, Button, Card, Heading, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { Pencil } from 'lucide-react';
+import { FilePlus2, Pencil } from 'lucide-react';
 import { Link as RouterLink, useParams } from 'react-router-dom';
 import { PageLoader } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
 import { canAccess } from '@/features/session/access';
 import { useSession } from '@/features/session/hooks';
-import { editCallHref } from '@/lib/paths';
+import { editCallHref, newProposalHref } from '@/lib/paths';
 import { defineRoute } from '@/lib/route-module';
 import { type Call, callQueryOptions } from '../api';
 import { CallRules } from '../components/call-rules';
@@ -48,13 +48,22 @@ function CallPage({ call }: { call: Call }) {
         title={call.title}
         description={`${call.code} · ${call.observatory.name}`}
         actions={
-          staff && call.status !== 'archived' ? (
-            <Button asChild variant="outline">
-              <RouterLink to={editCallHref(call.code)}>
-                <Pencil aria-hidden /> Edit call
-              </RouterLink>
-            </Button>
-          ) : undefined
+          <>
+            {call.acceptingSubmissions && (
+              <Button asChild>
+                <RouterLink to={newProposalHref(call.code)}>
+                  <FilePlus2 aria-hidden /> Write a proposal
+                </RouterLink>
+              </Button>
+            )}
+            {staff && call.status !== 'archived' && (
+              <Button asChild variant="outline">
+                <RouterLink to={editCallHref(call.code)}>
+                  <Pencil aria-hidden /> Edit call
+                </RouterLink>
+              </Button>
+            )}
+          </>
         }
       />
       <Stack gap="8">

@@ -139,10 +139,7 @@ export function DocumentsSection({
     } catch (error) {
       if (error instanceof DOMException && error.name === 'AbortError') {
         setState({ kind: 'idle' });
-      } else if (
-        isApiError(error) &&
-        (error.status === 400 || error.status === 413 || error.status === 422)
-      ) {
+      } else if (isApiError(error) && [400, 413, 415, 422].includes(error.status)) {
         const problems =
           error.issues.length > 0 ? error.issues.map((issue) => issue.message) : [error.message];
         setState({ kind: 'refused', filename: file.name, problems });
@@ -218,7 +215,11 @@ export function DocumentsSection({
                 value={percent}
                 max={100}
                 colorPalette="brand"
-                aria-label={`Uploading ${state.filename}`}
+                // The bar's own name, read with its value: "Uploading case.pdf: 40 %".
+                translations={{
+                  value: ({ value, percent }) =>
+                    `Uploading ${state.filename}: ${value === null ? 'starting' : `${Math.round(percent)} %`}`,
+                }}
               >
                 <HStack justify="space-between" mb="1">
                   <Progress.Label>

@@ -235,14 +235,7 @@ export function ObservationForm({
                   ))}
                 </Select>
               </FormField>
-              <FormField
-                label={LABELS.bandId}
-                error={liveError('bandId')}
-                required
-                helperText={
-                  band ? `${formatNumber(band.minGHz)}–${formatNumber(band.maxGHz)} GHz` : undefined
-                }
-              >
+              <FormField label={LABELS.bandId} error={liveError('bandId')} required>
                 <Select {...register('bandId', { required: 'Choose a receiver band.' })}>
                   <option value="">Choose a band</option>
                   {observatory.bands.map((b) => (

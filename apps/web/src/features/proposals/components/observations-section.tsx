@@ -141,15 +141,18 @@ export function ObservationsSection({
         )}
         {open?.kind === 'csv' && <CsvImport proposal={proposal} onDone={close} />}
         {targets.length === 0 ? (
-          <EmptyState
-            icon={Crosshair}
-            title="No targets yet"
-            description={
-              editable
-                ? 'Add the sources to observe one by one, or import a list from a CSV table.'
-                : 'The team has not added any targets.'
-            }
-          />
+          open?.kind !== 'target' &&
+          open?.kind !== 'csv' && (
+            <EmptyState
+              icon={Crosshair}
+              title="No targets yet"
+              description={
+                editable
+                  ? 'Add the sources to observe one by one, or import a list from a CSV table.'
+                  : 'The team has not added any targets.'
+              }
+            />
+          )
         ) : (
           <TargetsTable
             targets={targets}
@@ -197,17 +200,19 @@ export function ObservationsSection({
           />
         )}
         {observations.length === 0 ? (
-          <EmptyState
-            icon={Telescope}
-            title="No observations yet"
-            description={
-              editable
-                ? targets.length === 0
-                  ? 'Add a target first; then choose its band, configuration and the time it needs.'
-                  : 'Choose a target, its band and configuration, and the time it needs; the numbers show as you type.'
-                : 'The team has not added any observations.'
-            }
-          />
+          open?.kind !== 'observation' && (
+            <EmptyState
+              icon={Telescope}
+              title="No observations yet"
+              description={
+                editable
+                  ? targets.length === 0
+                    ? 'Add a target first; then choose its band, configuration and the time it needs.'
+                    : 'Choose a target, its band and configuration, and the time it needs; the numbers show as you type.'
+                  : 'The team has not added any observations.'
+              }
+            />
+          )
         ) : (
           <ObservationsTable
             rows={rows}

@@ -223,7 +223,7 @@ export function SubmitSection({ proposal, editable }: { proposal: Proposal; edit
       {status === 'draft' ? (
         <Stack gap="3" as="section" aria-labelledby="submit-heading">
           <Heading as="h3" size="md" id="submit-heading">
-            Submit
+            Submission
           </Heading>
           {proposal.submittedVersion !== null && (
             <StatusIndicator tone="warning">

@@ -100,10 +100,12 @@ function Editor({ proposal, section }: { proposal: Proposal; section: SectionId 
         </Alert.Root>
       )}
       <Grid
-        templateColumns={{ base: '1fr', md: '12rem minmax(0, 1fr)' }}
+        // minmax(0, …): a wide table or the row of section links scrolls in its column
+        // instead of widening the page.
+        templateColumns={{ base: 'minmax(0, 1fr)', md: '12rem minmax(0, 1fr)' }}
         gap={{ base: '4', md: '8' }}
       >
-        <Box position={{ md: 'sticky' }} top={{ md: '4' }} alignSelf="start">
+        <Box position={{ md: 'sticky' }} top={{ md: '4' }} alignSelf="start" minW="0">
           <SectionNav reference={proposal.reference} current={section} blockers={blockers} />
         </Box>
         <Stack as="section" aria-labelledby="editor-section-heading" gap="5" minW="0">
