@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { createTestApp, type TestApp } from './support/app.js';
 import { NEW_PASSWORD, registration } from './support/accounts.js';
 import { CALLS_MATRIX_PREFIXES, CALLS_ROWS } from './support/calls-rights.js';
+import { PROPOSALS_MATRIX_PREFIXES, PROPOSALS_ROWS } from './support/proposal-rights.js';
 import { makeUser, TEST_PASSWORD, uniqueEmail } from './support/factories.js';
 import {
   ACTOR_FACTORIES,
@@ -101,6 +102,7 @@ const ROWS: RightsRow[] = [
   },
   { route: 'GET /api/audit', expect: adminOnly(200) },
   ...CALLS_ROWS,
+  ...PROPOSALS_ROWS,
 ];
 
 /** Route prefixes whose every served route must have a row; a later issue adds its own. */
@@ -110,6 +112,7 @@ const MATRIX_PREFIXES = [
   '/api/users',
   '/api/audit',
   ...CALLS_MATRIX_PREFIXES,
+  ...PROPOSALS_MATRIX_PREFIXES,
 ];
 
 describe('rights matrix', () => {
