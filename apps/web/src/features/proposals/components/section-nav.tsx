@@ -38,6 +38,8 @@ export function SectionNav({
               <NavLink
                 to={proposalHref(reference, id)}
                 aria-current={active ? 'page' : undefined}
+                // Holds the badge's hidden words, which would otherwise widen the page.
+                position="relative"
                 display="flex"
                 alignItems="center"
                 justifyContent="space-between"

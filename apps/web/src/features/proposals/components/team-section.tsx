@@ -1,4 +1,5 @@
 import {
+  Box,
   Button,
   chakra,
   Checkbox,
@@ -168,9 +169,15 @@ function MemberActions({
         disabled={busy}
         onCheckedChange={(details) => onEditRight(member, details.checked)}
       >
-        <Switch.HiddenInput aria-label={`Edit right for ${who}`} />
+        <Switch.HiddenInput />
         <Switch.Control />
-        <Switch.Label>{member.canEdit ? 'May edit' : 'Reads only'}</Switch.Label>
+        {/* A fixed name: the switch itself says on or off. */}
+        <Switch.Label>
+          Edit right
+          <Box as="span" srOnly>
+            {` for ${who}`}
+          </Box>
+        </Switch.Label>
       </Switch.Root>
       {member.status === 'accepted' && (
         <Button size="xs" variant="outline" onClick={() => onAsk({ kind: 'make-pi', member })}>
