@@ -12,9 +12,17 @@ export function UserMenu({ session }: { session: Session }) {
   return (
     <Menu.Root positioning={{ placement: 'bottom-end' }}>
       <Menu.Trigger asChild>
-        <Button variant="ghost" size="sm" aria-label={`Account menu for ${session.name}`}>
+        <Button
+          variant="ghost"
+          size="sm"
+          maxW={{ base: '9rem', md: '16rem' }}
+          aria-label={`Account menu for ${session.name}`}
+        >
           <User aria-hidden />
-          <span>{session.name}</span>
+          {/* A long name is cut with an ellipsis rather than widening a narrow page. */}
+          <span style={{ overflow: 'hidden', textOverflow: 'ellipsis', whiteSpace: 'nowrap' }}>
+            {session.name}
+          </span>
           <ChevronDown aria-hidden />
         </Button>
       </Menu.Trigger>
