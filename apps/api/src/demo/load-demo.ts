@@ -2,12 +2,13 @@ import type { DataSource } from 'typeorm';
 import { loadDemoCalls } from './demo-calls.js';
 import type { DemoContext } from './demo-context.js';
 import { loadDemoObservatory } from './demo-observatory.js';
+import { loadDemoProposals } from './demo-proposals.js';
 import { loadDemoUsers } from './demo-users.js';
 
 export const DEMO_MARKER = 'demo_loaded_at';
 
 /** The demo's sections, in order; each feature adds its own. */
-const SECTIONS = [loadDemoUsers, loadDemoObservatory, loadDemoCalls];
+const SECTIONS = [loadDemoUsers, loadDemoObservatory, loadDemoCalls, loadDemoProposals];
 
 export async function loadDemo(
   dataSource: DataSource,
