@@ -175,7 +175,9 @@ describe('proposals: observations and checks', () => {
   });
 
   it('changes and removes an observation', async () => {
-    let { p, base, targetId } = await withTarget({ ra: '10:00:00', dec: '-30:00:00' });
+    const made = await withTarget({ ra: '10:00:00', dec: '-30:00:00' });
+    const { base, targetId } = made;
+    let p = made.p;
     p = await must(
       pi.post(`${base}/observations`, { version: p.version, ...observationOf(array, targetId) }),
       201,
@@ -213,7 +215,7 @@ describe('proposals: observations and checks', () => {
       );
       let codes = (await pi.get(`${base}/checks`)).body.items.map((c: { code: string }) => c.code);
       expect(codes).toContain('ABSTRACT_TOO_LONG');
-      p = await must(
+      await must(
         pi.patch(base, {
           version: p.version,
           abstract: ` ${Array(300).fill('word').join('\n ')} `,
@@ -230,7 +232,9 @@ describe('proposals: observations and checks', () => {
         hours: [100, 0],
         maxHoursPerProposal: 10,
       });
-      let { p, base, targetId } = await withTarget({ ra: '10:00:00', dec: '-30:00:00' }, narrow);
+      const made = await withTarget({ ra: '10:00:00', dec: '-30:00:00' }, narrow);
+      const { base, targetId } = made;
+      let p = made.p;
       p = await must(
         pi.post(`${base}/observations`, {
           version: p.version,

@@ -42,7 +42,9 @@ describe('proposals: targets', () => {
   };
 
   it('adds targets in sexagesimal or decimal degrees, as the calculator library parses them', async () => {
-    let { p, base } = await fresh();
+    const fresh_ = await fresh();
+    const base = fresh_.base;
+    let p = fresh_.p;
     p = await must(
       pi.post(`${base}/targets`, {
         version: p.version,
@@ -136,7 +138,9 @@ describe('proposals: targets', () => {
   });
 
   it('refuses a second target of the same name', async () => {
-    let { p, base } = await fresh();
+    const fresh_ = await fresh();
+    const base = fresh_.base;
+    let p = fresh_.p;
     p = await must(
       pi.post(`${base}/targets`, { version: p.version, name: 'Twin', ra: '1', dec: '2' }),
       201,
@@ -154,7 +158,9 @@ describe('proposals: targets', () => {
   });
 
   it('recomputes the observations of a changed target, and refuses to delete a target in use', async () => {
-    let { p, base } = await fresh();
+    const fresh_ = await fresh();
+    const base = fresh_.base;
+    let p = fresh_.p;
     p = await must(
       pi.post(`${base}/targets`, { version: p.version, name: 'Mover', ra: '10:00:00', dec: '-30' }),
       201,
@@ -240,7 +246,9 @@ describe('proposals: targets', () => {
     });
 
     it('saves nothing when a row is bad (400 naming rows.<i>.<column>), and everything when all are good', async () => {
-      let { p, base } = await fresh();
+      const fresh_ = await fresh();
+      const base = fresh_.base;
+      let p = fresh_.p;
       const bad = await pi.post(`${base}/targets/import`, {
         version: p.version,
         csv: CSV,
