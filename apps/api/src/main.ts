@@ -6,7 +6,9 @@ import { AppConfig } from './config/app-config.js';
 import { configureApp } from './configure-app.js';
 
 // Errors and warnings only: the start script prints what a person needs to know.
-const app = await NestFactory.create<NestExpressApplication>(AppModule, { logger: ['error', 'warn'] });
+const app = await NestFactory.create<NestExpressApplication>(AppModule, {
+  logger: ['error', 'warn'],
+});
 const extras = configureApp(app);
 const config = app.get(AppConfig);
 await app.listen(config.get('PORT'), config.get('HOST'));
