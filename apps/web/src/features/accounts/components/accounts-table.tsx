@@ -137,7 +137,8 @@ export function AccountsTable({
   });
 
   return (
-    <Table.ScrollArea borderWidth="1px" rounded="md">
+    // Focusable so keyboard users can scroll a wide table (axe: scrollable-region-focusable).
+    <Table.ScrollArea borderWidth="1px" rounded="md" tabIndex={0}>
       <Table.Root size="sm" interactive>
         <Table.Caption srOnly>Accounts</Table.Caption>
         <Table.Header>
