@@ -3,6 +3,7 @@ import { ObservatoryAndCalls1764800000000 } from './1764800000000-observatory-an
 import { Accounts1764799200000 } from './1764799200000-accounts.js';
 import { Documents1764880000000 } from './1764880000000-documents.js';
 import { Proposals1764960000000 } from './1764960000000-proposals.js';
+import { ReviewAndPlan1765050000000 } from './1765050000000-review-and-plan.js';
 
 /**
  * Every migration in order. A new migration file is added here too; listing them (rather than a
@@ -14,4 +15,5 @@ export const migrations = [
   ObservatoryAndCalls1764800000000,
   Documents1764880000000,
   Proposals1764960000000,
+  ReviewAndPlan1765050000000,
 ];

@@ -18,6 +18,11 @@ import { MailModule } from './mail/mail.module.js';
 import { ObservatoryModule } from './observatory/observatory.module.js';
 import { ProposalsModule } from './proposals/proposals.module.js';
 import { UsersModule } from './users/users.module.js';
+import { AllocationModule } from './allocation/allocation.module.js';
+import { AssessmentsModule } from './assessments/assessments.module.js';
+import { DeskModule } from './desk/desk.module.js';
+import { PlanModule } from './plan/plan.module.js';
+import { ReviewModule } from './review/review.module.js';
 
 @Module({
   imports: [
@@ -35,6 +40,11 @@ import { UsersModule } from './users/users.module.js';
     CalculatorModule,
     DocumentsModule,
     ProposalsModule,
+    AssessmentsModule,
+    ReviewModule,
+    AllocationModule,
+    PlanModule,
+    DeskModule,
   ],
   providers: [
     // Order matters: CSRF, then sign-in, then roles.

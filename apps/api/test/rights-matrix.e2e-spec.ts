@@ -3,6 +3,11 @@ import { createTestApp, type TestApp } from './support/app.js';
 import { NEW_PASSWORD, registration } from './support/accounts.js';
 import { CALLS_MATRIX_PREFIXES, CALLS_ROWS } from './support/calls-rights.js';
 import { PROPOSALS_MATRIX_PREFIXES, PROPOSALS_ROWS } from './support/proposal-rights.js';
+import { ALLOCATION_MATRIX_PREFIXES, ALLOCATION_ROWS } from './support/allocation-rights.js';
+import { ASSESSMENTS_MATRIX_PREFIXES, ASSESSMENTS_ROWS } from './support/assessments-rights.js';
+import { DESK_MATRIX_PREFIXES, DESK_ROWS } from './support/desk-rights.js';
+import { PLAN_MATRIX_PREFIXES, PLAN_ROWS } from './support/plan-rights.js';
+import { REVIEW_MATRIX_PREFIXES, REVIEW_ROWS } from './support/review-rights.js';
 import { makeUser, TEST_PASSWORD, uniqueEmail } from './support/factories.js';
 import {
   ACTOR_FACTORIES,
@@ -103,6 +108,11 @@ const ROWS: RightsRow[] = [
   { route: 'GET /api/audit', expect: adminOnly(200) },
   ...CALLS_ROWS,
   ...PROPOSALS_ROWS,
+  ...ASSESSMENTS_ROWS,
+  ...REVIEW_ROWS,
+  ...ALLOCATION_ROWS,
+  ...PLAN_ROWS,
+  ...DESK_ROWS,
 ];
 
 /** Route prefixes whose every served route must have a row; a later issue adds its own. */
@@ -113,6 +123,11 @@ const MATRIX_PREFIXES = [
   '/api/audit',
   ...CALLS_MATRIX_PREFIXES,
   ...PROPOSALS_MATRIX_PREFIXES,
+  ...ASSESSMENTS_MATRIX_PREFIXES,
+  ...REVIEW_MATRIX_PREFIXES,
+  ...ALLOCATION_MATRIX_PREFIXES,
+  ...PLAN_MATRIX_PREFIXES,
+  ...DESK_MATRIX_PREFIXES,
 ];
 
 describe('rights matrix', () => {

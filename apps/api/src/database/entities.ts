@@ -16,6 +16,9 @@ import { ProposalTarget } from '../proposals/entities/proposal-target.entity.js'
 import { ProposalVersion } from '../proposals/entities/proposal-version.entity.js';
 import { Proposal } from '../proposals/entities/proposal.entity.js';
 import { User } from '../users/entities/user.entity.js';
+import { allocationEntities } from '../allocation/entities/index.js';
+import { planEntities } from '../plan/entities/index.js';
+import { reviewEntities } from '../review/entities/index.js';
 
 /** Every entity, listed once; a feature module adds its entities here and to its forFeature(). */
 export const entities = [
@@ -37,4 +40,7 @@ export const entities = [
   ProposalTarget,
   ProposalObservation,
   ProposalVersion,
+  ...reviewEntities,
+  ...allocationEntities,
+  ...planEntities,
 ];

@@ -111,6 +111,78 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
                 audienceOf(paths.operations),
               ),
             },
+            {
+              path: paths.reviewing,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/reviewing/routes/assignments'),
+                audienceOf(paths.reviewing),
+              ),
+            },
+            {
+              path: `${paths.reviewing}/:assignmentId`,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/reviewing/routes/review'),
+                audienceOf(paths.reviewing),
+              ),
+            },
+            {
+              path: paths.standing,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/standing/routes/standing-calls'),
+                audienceOf(paths.standing),
+              ),
+            },
+            {
+              path: `${paths.standing}/:code`,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/standing/routes/standing'),
+                audienceOf(paths.standing),
+              ),
+            },
+            {
+              path: `${paths.standing}/:code/referees`,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/reviewing/routes/referee-assignments'),
+                audienceOf(paths.standing),
+              ),
+            },
+            {
+              path: paths.operationsAssessments,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/assessments/routes/assessment-calls'),
+                audienceOf(paths.operations),
+              ),
+            },
+            {
+              path: `${paths.operationsAssessments}/:code`,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/assessments/routes/assessments'),
+                audienceOf(paths.operations),
+              ),
+            },
+            {
+              path: paths.operationsPlans,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/plan/routes/plan-calls'),
+                audienceOf(paths.operations),
+              ),
+            },
+            {
+              path: `${paths.operationsPlans}/:code`,
+              ...lazyRoute(
+                queryClient,
+                () => import('@/features/plan/routes/plan'),
+                audienceOf(paths.operations),
+              ),
+            },
             ...(
               [
                 [authPaths.signIn, () => import('@/features/auth/routes/sign-in')],

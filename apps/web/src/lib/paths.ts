@@ -13,6 +13,8 @@ export const paths = {
   operations: '/operations',
   operationsArray: '/operations/array',
   operationsCalls: '/operations/calls',
+  operationsAssessments: '/operations/assessments',
+  operationsPlans: '/operations/plans',
   newCall: '/operations/calls/new',
   accounts: '/accounts',
   profile: '/profile',
@@ -31,6 +33,23 @@ export const newProposalHref = (callCode?: string) =>
   callCode
     ? `${paths.newProposal}?${new URLSearchParams({ call: callCode }).toString()}`
     : paths.newProposal;
+
+/** A referee's page for one assignment: the proposal to read, conflicts, the review form. */
+export const reviewHref = (assignmentId: string) =>
+  `${paths.reviewing}/${encodeURIComponent(assignmentId)}`;
+
+/** The chair's standing of one call. */
+export const standingHref = (code: string) => `${paths.standing}/${encodeURIComponent(code)}`;
+
+/** The chair's referee assignments of one call. */
+export const refereeAssignmentsHref = (code: string) => `${standingHref(code)}/referees`;
+
+/** Staff's technical assessments of one call's proposals. */
+export const assessmentsHref = (code: string) =>
+  `${paths.operationsAssessments}/${encodeURIComponent(code)}`;
+
+/** Staff's observing plan of one call. */
+export const planHref = (code: string) => `${paths.operationsPlans}/${encodeURIComponent(code)}`;
 
 /** Staff's form for changing a call. */
 export const editCallHref = (code: string) =>

@@ -1,5 +1,11 @@
 import { Card, Heading, Link, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { Megaphone, SatelliteDish, type LucideIcon } from 'lucide-react';
+import {
+  CalendarRange,
+  ClipboardList,
+  Megaphone,
+  SatelliteDish,
+  type LucideIcon,
+} from 'lucide-react';
 import { Link as RouterLink } from 'react-router-dom';
 import { PageHeader } from '@/components/ui/page-header';
 import { paths } from '@/lib/paths';
@@ -17,6 +23,18 @@ const AREAS: { to: string; title: string; description: string; icon: LucideIcon 
     title: 'Calls for proposals',
     description: 'Create calls, open them, move them along, appoint chairs and referees.',
     icon: Megaphone,
+  },
+  {
+    to: paths.operationsAssessments,
+    title: 'Technical assessments',
+    description: 'Check each submitted proposal: feasible, feasible with changes or not feasible.',
+    icon: ClipboardList,
+  },
+  {
+    to: paths.operationsPlans,
+    title: 'Observing plans',
+    description: 'Turn a published call’s grants into runs, and record what was observed.',
+    icon: CalendarRange,
   },
 ];
 

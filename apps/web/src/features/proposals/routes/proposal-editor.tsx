@@ -11,6 +11,8 @@ import { paths } from '@/lib/paths';
 import { formatCountdown } from '@/lib/time';
 import { defineRoute } from '@/lib/route-module';
 import { type Proposal, proposalQueryOptions } from '../api';
+import { ProposalProgress } from '@/features/plan/components/proposal-progress';
+import { ProposalOutcome } from '@/features/standing/components/proposal-outcome';
 import { ChecksSection } from '../components/checks-section';
 import { DocumentsSection } from '../components/documents-section';
 import { ObservationsSection } from '../components/observations-section';
@@ -99,6 +101,8 @@ function Editor({ proposal, section }: { proposal: Proposal; section: SectionId 
           <Alert.Title fontWeight="normal">{reason}</Alert.Title>
         </Alert.Root>
       )}
+      <ProposalOutcome proposal={proposal} />
+      <ProposalProgress proposal={proposal} />
       <Grid
         // minmax(0, …): a wide table or the row of section links scrolls in its column
         // instead of widening the page.
