@@ -35,9 +35,13 @@ describe('proposals: deadline reminders and call changes', () => {
   /** Gives the outbox time to send whatever is queued, so a count of 1 stays 1. */
   const settle = () => new Promise((r) => setTimeout(r, 700));
 
+  // The job reminds every draft in the database, and the other e2e files make calls with
+  // deadlines ten days out while this one runs; these calls close far beyond theirs so that
+  // moving the clock to their reminder windows reminds only this file's drafts.
   it('reminds the team of a draft 7 days and 1 day before the deadline, each once', async () => {
     const call = await makeCall(t.dataSource, array, {
-      deadlineAt: new Date(Date.now() + 10 * DAY),
+      deadlineAt: new Date(Date.now() + 417 * DAY),
+      reviewDueAt: new Date(Date.now() + 447 * DAY),
     });
     const pi = await signedIn(t, { name: 'Perpetua Lindqvist' });
     const coi = await signedIn(t);
@@ -109,8 +113,10 @@ describe('proposals: deadline reminders and call changes', () => {
 
   it('sends a draft first made in the last day only the last-day reminder', async () => {
     const call = await makeCall(t.dataSource, array, {
-      deadlineAt: new Date(Date.now() + 12 * HOUR),
+      deadlineAt: new Date(Date.now() + 333 * DAY + 12 * HOUR),
+      reviewDueAt: new Date(Date.now() + 363 * DAY),
     });
+    t.clock.set(new Date(call.deadlineAt.getTime() - 12 * HOUR));
     const pi = await signedIn(t);
     const draft = await createProposal(pi.agent, call.code);
     await job.sendDue();
