@@ -18,9 +18,11 @@
 import { evaluateObservation, HI_REST_FREQUENCY_GHZ } from '../libs/calc/dist/index.js';
 
 const GOAL_PER_SECOND = 200_000;
-const ROUNDS = 5;
-const ROUND_MS = 2000;
-const WARM_UP_MS = 1000;
+// BENCH_SMOKE=1 (npm run bench -- --smoke, and CI) runs a short round only, to prove the script works.
+const SMOKE = process.env.BENCH_SMOKE === '1';
+const ROUNDS = SMOKE ? 1 : 5;
+const ROUND_MS = SMOKE ? 200 : 2000;
+const WARM_UP_MS = SMOKE ? 100 : 1000;
 const INPUTS = 1024;
 
 /** Deterministic pseudo-random numbers in [0, 1) (a 32-bit LCG), so every run sees the same inputs. */
@@ -163,3 +165,4 @@ console.log(
 console.log(
   `evaluations/s (wall clock): median ${fmt(wall.median)}, min ${fmt(wall.min)}, max ${fmt(wall.max)}`,
 );
+if (!SMOKE && cpu.median < GOAL_PER_SECOND) process.exitCode = 1;

@@ -19,7 +19,17 @@ const { ensureDatabase, startCluster } = await import('./lib/postgres.mjs');
 const { loadDemo, migrate, startApi, startMailSink } = await import('./lib/stack.mjs');
 const { ensureChromium } = await import('./lib/chromium.mjs');
 
-const SUITES = ['lint', 'typecheck', 'calc', 'mail-sink', 'api-unit', 'api-e2e', 'web', 'browser'];
+const SUITES = [
+  'lint',
+  'typecheck',
+  'calc',
+  'mail-sink',
+  'api-unit',
+  'web',
+  'bench',
+  'api-e2e',
+  'browser',
+];
 const argv = process.argv.slice(2);
 if (argv.includes('--list')) {
   console.log(SUITES.join('\n'));
@@ -135,7 +145,8 @@ try {
   await check('typecheck', ['npm', 'run', '--silent', 'typecheck']);
 
   const needsServices = ['api-e2e', 'browser'].some(wanted);
-  const needsBuild = needsServices || ['calc', 'mail-sink', 'api-unit', 'web'].some(wanted);
+  const needsBuild =
+    needsServices || ['calc', 'mail-sink', 'api-unit', 'web', 'bench'].some(wanted);
   if (needsBuild) await ensureBuilt();
 
   await suite('calc', vitest('libs/calc/vitest.config.ts'));
@@ -145,6 +156,8 @@ try {
     NODE_OPTIONS: '--experimental-vm-modules',
   });
   await suite('web', vitest('apps/web/vitest.config.ts'));
+  // A short run of every benchmark, proving each still runs (its figures mean nothing).
+  await check('bench', ['node', 'scripts/bench.mjs', '--smoke', '--no-build']);
 
   if (needsServices && !interrupted) {
     banner('services');
