@@ -17,3 +17,4 @@ export * from './sky.js';
 export * from './validation.js';
 export * from './coordinates.js';
 export * from './scores.js';
+export * from './plan.js';
