@@ -7,6 +7,7 @@ import { DataSource } from 'typeorm';
 import { AppModule } from '../../src/app.module.js';
 import { Clock } from '../../src/common/clock.js';
 import { configureApp } from '../../src/configure-app.js';
+import { StatementBudget } from './statement-budget.js';
 
 /** A clock the test can move; it runs on from wherever it was set. */
 export class TestClock extends Clock {
@@ -33,6 +34,8 @@ export interface TestApp {
   app: NestExpressApplication;
   clock: TestClock;
   dataSource: DataSource;
+  /** Counts each request's SQL statements; closing the app fails when one went over the budget. */
+  statements: StatementBudget;
   /**
    * A fresh cookie-keeping client (one browser). Each comes from its own client address (sent as
    * X-Forwarded-For, which the test app trusts), so one test's requests never use up another's
@@ -58,17 +61,22 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     const app = moduleRef.createNestApplication<NestExpressApplication>({
       logger: ['error', 'warn'],
     });
+    const statements = new StatementBudget();
+    app.use(statements.middleware);
     const extras = configureApp(app);
     await app.init();
     const dataSource = app.get(DataSource);
+    statements.install(dataSource);
     return {
       app,
       clock,
       dataSource,
+      statements,
       agent: (options) => new TestAgent(app, options?.ip ?? randomTestIp()),
       async close() {
         await app.close();
         await extras.close();
+        statements.assertWithinBudget();
       },
     };
   } finally {
