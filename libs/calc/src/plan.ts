@@ -207,7 +207,9 @@ export function generatePlan(input: PlanInput): PlanResult {
   const unplaced: UnplacedObservation[] = [];
 
   for (const obs of order) {
-    let remaining = Math.round((obs.hours * 60) / PLAN_SLOT_MINUTES);
+    // Whole slots, rounded down: a plan never holds more than was granted (less than one slot
+    // of a grant may stay unplanned).
+    let remaining = Math.floor((obs.hours * 60) / PLAN_SLOT_MINUTES + 1e-9);
     if (remaining <= 0) continue;
     const window = lstWindow({
       latitudeDeg: input.site.latitudeDeg,
