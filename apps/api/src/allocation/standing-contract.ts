@@ -136,3 +136,59 @@ export interface GrantRequest {
   observations?: { id: string; hours: number }[];
   note?: string;
 }
+
+/**
+ * The answer of `PUT` and `DELETE /api/proposals/:reference/grant`: the proposal's row as the
+ * standing now shows it, and what changed with it across the call. Rows ranked below it change
+ * their `cumulativeGranted` too: refetch the standing (or add the difference) to show those.
+ */
+export interface GrantResponse {
+  row: StandingRow;
+  totals: ConfigurationTotals[];
+  pressure: LstPressure[];
+  undecided: string[];
+}
+
+/** `POST /api/calls/:code/publish` body: `confirm` publishes even with undecided proposals. */
+export interface PublishRequest {
+  confirm?: boolean;
+}
+
+/** The 409 of a publish with undecided proposals (the error envelope plus the references). */
+export interface UndecidedProposalsError {
+  statusCode: 409;
+  code: 'UNDECIDED_PROPOSALS';
+  message: string;
+  references: string[];
+}
+
+/** The answer of a publish. */
+export interface PublishResponse {
+  code: string;
+  status: 'published';
+  publishedAt: string;
+  /** Outcome e-mails queued (one per person per proposal). */
+  emailsQueued: number;
+  /** Proposals published as not allocated because they had no decision. */
+  undecidedAsNotAllocated: string[];
+}
+
+/** `GET /api/proposals/:reference/outcome`, for the team once the call is published. */
+export interface ProposalOutcome {
+  reference: string;
+  callCode: string;
+  /** Undecided proposals of a published call count as not allocated. */
+  tier: Tier;
+  hoursGranted: number;
+  observations: {
+    id: string;
+    targetName: string;
+    configurationName: string;
+    bandName: string;
+    hoursAsked: number;
+    hoursGranted: number;
+  }[];
+  /** The referees' comments to the PI, without their names, in no meaningful order. */
+  comments: string[];
+  publishedAt: string;
+}
