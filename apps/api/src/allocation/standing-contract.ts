@@ -91,8 +91,8 @@ export interface ConfigurationTotals {
   hoursOffered: number;
   hoursAsked: number;
   hoursGranted: number;
-  /** hoursAsked / hoursOffered */
-  oversubscription: number;
+  /** hoursAsked / hoursOffered; null when nothing is offered in it. */
+  oversubscription: number | null;
   /** The reference of the first row (in rank order) whose cumulative grant passes the offer. */
   offerRunsOutAt: string | null;
 }
