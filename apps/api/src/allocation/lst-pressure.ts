@@ -49,9 +49,7 @@ const dayNumber = (isoDate: string) => Math.floor(Date.parse(`${isoDate}T00:00:0
 export function observableDays(configuration: PeriodConfiguration, reviewDueDate: string): number {
   const start = Math.max(dayNumber(configuration.inUseFrom), dayNumber(reviewDueDate));
   const end =
-    configuration.inUseTo === null
-      ? start + OPEN_ENDED_DAYS - 1
-      : dayNumber(configuration.inUseTo);
+    configuration.inUseTo === null ? start + OPEN_ENDED_DAYS - 1 : dayNumber(configuration.inUseTo);
   return Math.max(0, end - start + 1);
 }
 
@@ -73,7 +71,11 @@ export function windowShares(window: {
   lstSetHours: number | null;
 }): number[] {
   if (window.visibility === 'never-rises') return new Array<number>(24).fill(0);
-  if (window.visibility === 'never-sets' || window.lstRiseHours === null || window.lstSetHours === null)
+  if (
+    window.visibility === 'never-sets' ||
+    window.lstRiseHours === null ||
+    window.lstSetHours === null
+  )
     return new Array<number>(24).fill(1 / 24);
   const rise = window.lstRiseHours;
   let set = window.lstSetHours;

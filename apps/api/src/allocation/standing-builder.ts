@@ -264,5 +264,8 @@ function refereesOf(reviews: readonly ReviewFacts[]): RefereeScores[] {
         mean: scores.length ? round(scores.reduce((a, b) => a + b, 0) / scores.length, 9) : null,
       };
     })
-    .sort((a, b) => a.refereeName.localeCompare(b.refereeName) || a.refereeId.localeCompare(b.refereeId));
+    .sort(
+      (a, b) =>
+        a.refereeName.localeCompare(b.refereeName) || a.refereeId.localeCompare(b.refereeId),
+    );
 }

@@ -39,7 +39,8 @@ export class GrantDto implements GrantRequest {
   @ApiProperty({
     type: [ObservationHoursDto],
     required: false,
-    description: 'Hours per observation; an observation left out gets the hours it asked (none when not allocated)',
+    description:
+      'Hours per observation; an observation left out gets the hours it asked (none when not allocated)',
   })
   @IsOptional()
   @IsArray({ message: 'observations must be a list of { id, hours }' })
