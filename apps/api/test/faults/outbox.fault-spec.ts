@@ -42,7 +42,11 @@ describe('outbox: the mail server away and back', () => {
         [subject],
       )) as { n: number; failed: number }[];
     expect((await queued())[0]!.n).toBe(COUNT);
-    await waitFor('every message tried once', async () => (await queued())[0]!.failed === COUNT, 30000);
+    await waitFor(
+      'every message tried once',
+      async () => (await queued())[0]!.failed === COUNT,
+      30000,
+    );
     expect(await sink.summaries(stack.sinkUrl).catch(() => 'sink down')).toBe('sink down');
 
     await stack.startSink();

@@ -58,7 +58,12 @@ describe('PostgreSQL restarted during traffic', () => {
 
     await stack.startPostgres();
     const upAt = Date.now();
-    const recoveredInMs = await waitFor('health turns 200', async () => (await health()) === 200, 10000, 100);
+    const recoveredInMs = await waitFor(
+      'health turns 200',
+      async () => (await health()) === 200,
+      10000,
+      100,
+    );
     expect(recoveredInMs).toBeLessThan(10000);
     await sleep(2000);
     stop = true;
@@ -74,10 +79,17 @@ describe('PostgreSQL restarted during traffic', () => {
     expect(failed.length).toBeGreaterThan(0); // the outage was felt…
     for (const f of failed) {
       const body = (f.res as Answer).body as { statusCode?: number; code?: string };
-      expect(body).toMatchObject({ statusCode: (f.res as Answer).status, code: expect.any(String) });
+      expect(body).toMatchObject({
+        statusCode: (f.res as Answer).status,
+        code: expect.any(String),
+      });
     }
-    const createdBefore = answers.filter((a) => a.at < downAt && a.res !== 'no answer' && a.res.status === 201);
-    const createdAfter = answers.filter((a) => a.at > upAt && a.res !== 'no answer' && a.res.status === 201);
+    const createdBefore = answers.filter(
+      (a) => a.at < downAt && a.res !== 'no answer' && a.res.status === 201,
+    );
+    const createdAfter = answers.filter(
+      (a) => a.at > upAt && a.res !== 'no answer' && a.res.status === 201,
+    );
     expect(createdBefore.length).toBeGreaterThan(0);
     expect(createdAfter.length).toBeGreaterThan(0); // …and it ended without a restart
 

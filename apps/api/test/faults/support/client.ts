@@ -29,6 +29,11 @@ export class HttpAgent {
     };
   }
 
+  /** The session cookie as a Cookie header, for a request made without this agent. */
+  cookieHeader(): string {
+    return this.cookie;
+  }
+
   private keepCookie(res: Response): void {
     const set = res.headers.getSetCookie().find((c) => c.startsWith('skyhours.sid='));
     if (set) this.cookie = set.split(';')[0]!;
@@ -129,7 +134,9 @@ export class HttpAgent {
       });
       req.on('error', () => resolve('connection lost'));
     });
-    await new Promise<void>((resolve) => req.write(Buffer.concat([head, bytes.subarray(0, sentBytes)]), () => resolve()));
+    await new Promise<void>((resolve) =>
+      req.write(Buffer.concat([head, bytes.subarray(0, sentBytes)]), () => resolve()),
+    );
     return { abort: () => req.destroy(), answered };
   }
 }
@@ -151,11 +158,17 @@ export async function waitFor(
 
 /** The mail sink's JSON API at `base`. */
 export const sink = {
-  async summaries(base: string, to?: string): Promise<{ id: string; to: string[]; subject: string }[]> {
+  async summaries(
+    base: string,
+    to?: string,
+  ): Promise<{ id: string; to: string[]; subject: string }[]> {
     const res = await fetch(`${base}/api/messages${to ? `?to=${encodeURIComponent(to)}` : ''}`);
     return (await res.json()) as { id: string; to: string[]; subject: string }[];
   },
-  async full(base: string, id: string): Promise<{ messageId: string | null; to: string[]; subject: string }> {
+  async full(
+    base: string,
+    id: string,
+  ): Promise<{ messageId: string | null; to: string[]; subject: string }> {
     const res = await fetch(`${base}/api/messages/${id}`);
     return (await res.json()) as { messageId: string | null; to: string[]; subject: string };
   },
