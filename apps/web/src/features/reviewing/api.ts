@@ -180,7 +180,8 @@ export const reviewQueryOptions = (id: string) =>
 export const callRefereesQueryOptions = (code: string) =>
   queryOptions({
     queryKey: reviewKeys.pool(code),
-    queryFn: ({ signal }) => api.get<CallRefereesResponse>(`${callPath(code)}/referees`, { signal }),
+    queryFn: ({ signal }) =>
+      api.get<CallRefereesResponse>(`${callPath(code)}/referees`, { signal }),
   });
 
 export const saveReview = (id: string, body: SaveReviewRequest) =>
