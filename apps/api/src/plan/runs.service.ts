@@ -207,7 +207,8 @@ export class RunsService {
     const r = rows[0];
     if (!r || Number(r.granted) <= 0) return;
     if (r.short === 0) {
-      const done: Array<{ reference: string; title: string }> = await m.query(
+      // An UPDATE through TypeORM's postgres driver answers [rows, affected].
+      const [done]: [Array<{ reference: string; title: string }>, number] = await m.query(
         `UPDATE proposals SET status = 'completed', completed_at = $2, version = version + 1, updated_at = $2
           WHERE id = $1 AND completed_at IS NULL RETURNING reference, title`,
         [proposalId, now],
