@@ -89,7 +89,9 @@ describe('plan: progress, completion and the private calendar feed', () => {
   it('shows nothing of the grants before the call is published, and nothing to outsiders', async () => {
     const c = await makePlanCall(t, { proposals: 1, published: false });
     const p = c.proposals[0]!;
-    const res = await (await agentFor(t, p.pi)).get(`/api/proposals/${p.proposal.reference}/progress`);
+    const res = await (
+      await agentFor(t, p.pi)
+    ).get(`/api/proposals/${p.proposal.reference}/progress`);
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ published: false, tier: null, observations: [], runs: [] });
     const outsider = await agentFor(t, await makeUser(t.dataSource));
@@ -108,7 +110,10 @@ describe('plan: progress, completion and the private calendar feed', () => {
     const url = new URL(created.body.url as string);
     expect(url.pathname).toMatch(/^\/api\/calendar\/[A-Za-z0-9_-]{43}\.ics$/);
     // Only the hash is stored.
-    const token = url.pathname.split('/').at(-1)!.replace(/\.ics$/, '');
+    const token = url.pathname
+      .split('/')
+      .at(-1)!
+      .replace(/\.ics$/, '');
     const stored = await t.dataSource.query(
       `SELECT token_sha256 FROM calendar_feeds WHERE user_id = $1`,
       [c.proposals[0]!.pi.id],

@@ -98,7 +98,8 @@ export class RunsService {
         await this.audit.record(
           {
             actorId: user.id,
-            action: dto.status !== undefined ? 'run.recorded' : moving ? 'run.moved' : 'run.updated',
+            action:
+              dto.status !== undefined ? 'run.recorded' : moving ? 'run.moved' : 'run.updated',
             subjectType: 'run',
             subjectId: run.id,
             details: { reference: run.proposal.reference, ...changes },

@@ -95,7 +95,12 @@ export async function makePlanCall(t: TestApp, opts: PlanCallOptions = {}): Prom
 export async function insertRun(
   t: TestApp,
   c: Pick<PlanCall, 'call' | 'proposals'>,
-  opts: { proposal?: number; hours?: number; status?: 'planned' | 'observed'; locked?: boolean } = {},
+  opts: {
+    proposal?: number;
+    hours?: number;
+    status?: 'planned' | 'observed';
+    locked?: boolean;
+  } = {},
 ): Promise<{ id: string; startsAt: Date; endsAt: Date }> {
   const p = c.proposals[opts.proposal ?? 0]!;
   const hours = opts.hours ?? 2;

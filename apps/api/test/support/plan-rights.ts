@@ -56,7 +56,9 @@ export const PLAN_ROWS: RightsRow[] = [
   {
     route: 'GET /api/calls/:code/plan',
     note: 'staff and the call’s chair; for anyone else the plan does not exist',
-    request: async (t, actor) => ({ path: `/api/calls/${(await planCall(t, actor)).call.code}/plan` }),
+    request: async (t, actor) => ({
+      path: `/api/calls/${(await planCall(t, actor)).call.code}/plan`,
+    }),
     expect: readers(200),
   },
   {

@@ -4,7 +4,8 @@ import { api } from '@/lib/api-client';
 export type PlanTier = 'tier1' | 'tier2' | 'tier3';
 export type RunStatus = 'planned' | 'observed' | 'lost';
 export type LostReason = 'weather' | 'fault';
-export type UnplacedReason = 'never_rises' | 'no_lst_window' | 'maintenance' | 'reserve' | 'no_room';
+export type UnplacedReason =
+  'never_rises' | 'no_lst_window' | 'maintenance' | 'reserve' | 'no_room';
 
 /** One run as the plan routes answer it; instants are UTC ISO strings, LST in hours. */
 export interface PlanRun {
@@ -137,7 +138,8 @@ export const progressQueryOptions = (reference: string) =>
 export const savePlanSettings = (code: string, settings: PlanSettings) =>
   api.put<Plan>(`${callPath(code)}/plan/settings`, settings);
 export const generatePlan = (code: string) => api.post<Plan>(`${callPath(code)}/plan/generate`);
-export const updateRun = (id: string, change: RunChange) => api.patch<PlanRun>(`/runs/${id}`, change);
+export const updateRun = (id: string, change: RunChange) =>
+  api.patch<PlanRun>(`/runs/${id}`, change);
 export const splitRun = (id: string, version: number, at: string) =>
   api.post<PlanRun[]>(`/runs/${id}/split`, { version, at });
 export const deleteRun = (id: string) => api.delete<void>(`/runs/${id}`);

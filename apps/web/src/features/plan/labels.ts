@@ -48,7 +48,10 @@ export function zonedText(iso: string, timeZone: string): string {
 
 /** `2027-03-03` — the day of an instant in a zone (for grouping runs by day). */
 export function zonedDay(iso: string, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(
-    new Date(iso),
-  );
+  return new Intl.DateTimeFormat('en-CA', {
+    timeZone,
+    year: 'numeric',
+    month: '2-digit',
+    day: '2-digit',
+  }).format(new Date(iso));
 }

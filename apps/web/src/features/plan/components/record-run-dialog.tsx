@@ -69,7 +69,12 @@ export function RecordRunDialog({
           onClose();
         },
         onError: (error) =>
-          setServerErrors(error, setError, ['status', 'hoursObtained', 'qualityNote', 'lostReason']),
+          setServerErrors(error, setError, [
+            'status',
+            'hoursObtained',
+            'qualityNote',
+            'lostReason',
+          ]),
       },
     );
   });

@@ -102,10 +102,20 @@ function makeColumns(siteZone: string, viewerZone: string, actions: RunActions) 
         const name = `the run of ${r.proposal.reference} at ${zonedText(r.startsAt, siteZone)}`;
         return (
           <HStack gap="1" wrap="wrap">
-            <Button size="xs" variant="outline" onClick={() => actions.onLock(r)} aria-label={`${r.locked ? 'Unlock' : 'Lock'} ${name}`}>
+            <Button
+              size="xs"
+              variant="outline"
+              onClick={() => actions.onLock(r)}
+              aria-label={`${r.locked ? 'Unlock' : 'Lock'} ${name}`}
+            >
               {r.locked ? 'Unlock' : 'Lock'}
             </Button>
-            <Button size="xs" variant="outline" onClick={() => actions.onRecord(r)} aria-label={`Record ${name}`}>
+            <Button
+              size="xs"
+              variant="outline"
+              onClick={() => actions.onRecord(r)}
+              aria-label={`Record ${name}`}
+            >
               Record
             </Button>
             <Button
@@ -143,7 +153,15 @@ export function splitPoint(run: Pick<PlanRun, 'startsAt' | 'endsAt'>): string {
 }
 
 /** Every run of the plan, a page at a time, with staff's actions on each. */
-export function RunsTable({ code, runs, siteZone }: { code: string; runs: PlanRun[]; siteZone: string }) {
+export function RunsTable({
+  code,
+  runs,
+  siteZone,
+}: {
+  code: string;
+  runs: PlanRun[];
+  siteZone: string;
+}) {
   const [page, setPage] = useState(1);
   const [recording, setRecording] = useState<PlanRun | null>(null);
   const [splitting, setSplitting] = useState<PlanRun | null>(null);
@@ -154,7 +172,10 @@ export function RunsTable({ code, runs, siteZone }: { code: string; runs: PlanRu
   const fail = (error: Error) => toaster.create({ type: 'error', title: error.message });
   const columns = makeColumns(siteZone, viewerTimeZone(), {
     onLock: (r) =>
-      update.mutate({ id: r.id, change: { version: r.version, locked: !r.locked } }, { onError: fail }),
+      update.mutate(
+        { id: r.id, change: { version: r.version, locked: !r.locked } },
+        { onError: fail },
+      ),
     onRecord: setRecording,
     onSplit: setSplitting,
     onDelete: setDeleting,

@@ -10,10 +10,10 @@ interface SettingsForm {
   maintenanceStartHour: string;
   maintenanceHours: string;
   /** Percent in the form; a fraction on the wire. */
-  weatherReservePercent: string;
+  weatherReserve: string;
 }
 
-const FIELDS = ['maintenanceStartHour', 'maintenanceHours', 'weatherReservePercent'] as const;
+const FIELDS = ['maintenanceStartHour', 'maintenanceHours', 'weatherReserve'] as const;
 
 /** The plan's maintenance window (site's local time) and weather reserve. */
 export function PlanSettingsForm({ plan }: { plan: Plan }) {
@@ -27,25 +27,18 @@ export function PlanSettingsForm({ plan }: { plan: Plan }) {
     values: {
       maintenanceStartHour: String(plan.settings.maintenanceStartHour),
       maintenanceHours: String(plan.settings.maintenanceHours),
-      weatherReservePercent: String(Math.round(plan.settings.weatherReserve * 1000) / 10),
+      weatherReserve: String(Math.round(plan.settings.weatherReserve * 1000) / 10),
     },
   });
   const onSubmit = handleSubmit((values) => {
     const settings: PlanSettings = {
       maintenanceStartHour: Number(values.maintenanceStartHour),
       maintenanceHours: Number(values.maintenanceHours),
-      weatherReserve: Number(values.weatherReservePercent) / 100,
+      weatherReserve: Number(values.weatherReserve) / 100,
     };
     save.mutate(settings, {
       onSuccess: () => toaster.create({ type: 'success', title: 'Plan settings saved' }),
-      onError: (error) =>
-        setServerErrors(
-          // The server names weatherReserve; the form shows it as a percentage.
-          error,
-          (path, e) =>
-            setError(path === ('weatherReserve' as never) ? 'weatherReservePercent' : path, e),
-          [...FIELDS, 'weatherReserve' as never],
-        ),
+      onError: (error) => setServerErrors(error, setError, FIELDS),
     });
   });
   const whole = (label: string, min: number, max: number) => ({
@@ -75,17 +68,20 @@ export function PlanSettingsForm({ plan }: { plan: Plan }) {
             error={errors.maintenanceHours}
             maxW="14rem"
           >
-            <Input inputMode="numeric" {...register('maintenanceHours', whole('The length', 0, 23))} />
+            <Input
+              inputMode="numeric"
+              {...register('maintenanceHours', whole('The length', 0, 23))}
+            />
           </FormField>
           <FormField
             label="Weather reserve (%)"
             helperText="Share of usable time held back"
-            error={errors.weatherReservePercent}
+            error={errors.weatherReserve}
             maxW="14rem"
           >
             <Input
               inputMode="decimal"
-              {...register('weatherReservePercent', {
+              {...register('weatherReserve', {
                 required: 'The reserve is needed',
                 validate: (v) =>
                   (v.trim() !== '' && Number(v) >= 0 && Number(v) <= 90) ||
