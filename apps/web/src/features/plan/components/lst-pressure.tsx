@@ -9,7 +9,13 @@ import { hoursText } from '../labels';
 export function LstPressure({ plan }: { plan: Plan }) {
   const max = Math.max(1, ...plan.lstPressure.map((b) => Math.max(b.granted, b.capacity)));
   return (
-    <Table.ScrollArea borderWidth="1px" rounded="md" maxH="28rem">
+    <Table.ScrollArea
+      borderWidth="1px"
+      rounded="md"
+      maxH="28rem"
+      tabIndex={0}
+      aria-label="LST pressure, scrollable"
+    >
       <Table.Root size="sm">
         <Table.Caption srOnly>LST pressure of the plan’s period</Table.Caption>
         <Table.Header>

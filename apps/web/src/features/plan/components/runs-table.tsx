@@ -186,7 +186,7 @@ export function RunsTable({
   const table = useTable({ features, columns, data });
   return (
     <>
-      <Table.ScrollArea borderWidth="1px" rounded="md">
+      <Table.ScrollArea borderWidth="1px" rounded="md" tabIndex={0} aria-label="Runs, scrollable">
         <Table.Root size="sm">
           <Table.Caption srOnly>Runs of the plan</Table.Caption>
           <Table.Header>

@@ -72,7 +72,12 @@ function PlanCallsPage() {
           description="A call's grants can be planned once its outcomes are published."
         />
       ) : (
-        <Table.ScrollArea borderWidth="1px" rounded="md">
+        <Table.ScrollArea
+          borderWidth="1px"
+          rounded="md"
+          tabIndex={0}
+          aria-label="Published calls, scrollable"
+        >
           <Table.Root size="sm">
             <Table.Caption srOnly>Published calls and their plans</Table.Caption>
             <Table.Header>

@@ -31,7 +31,12 @@ function Section({ title, children }: { title: string; children: React.ReactNode
 
 function Totals({ plan }: { plan: Plan }) {
   return (
-    <Table.ScrollArea borderWidth="1px" rounded="md">
+    <Table.ScrollArea
+      borderWidth="1px"
+      rounded="md"
+      tabIndex={0}
+      aria-label="Hours per tier, scrollable"
+    >
       <Table.Root size="sm">
         <Table.Caption srOnly>Hours per tier</Table.Caption>
         <Table.Header>
