@@ -110,7 +110,8 @@ function PlanPage() {
           {generated
             ? `Last generated ${generated.local} (${generated.utc}).`
             : 'Not generated yet.'}{' '}
-          {plan.periods.map((p) => `${p.configurationName}: ${p.start} to ${p.end}`).join('; ')}
+          {plan.periods.length > 0 &&
+            `Periods: ${plan.periods.map((p) => `${p.configurationName} ${p.start} to ${p.end}`).join('; ')}.`}
         </Text>
         <Section title="Settings">
           <PlanSettingsForm plan={plan} />
