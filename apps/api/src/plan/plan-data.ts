@@ -180,7 +180,11 @@ function toRun(r: Record<string, unknown>): RunRow {
       position: r.position as number,
       configurationName: r.configuration_name as string,
     },
-    target: { name: r.target_name as string, raDeg: r.ra_deg as number, decDeg: r.dec_deg as number },
+    target: {
+      name: r.target_name as string,
+      raDeg: r.ra_deg as number,
+      decDeg: r.dec_deg as number,
+    },
     proposal: { reference: r.reference as string, title: r.title as string },
     tier: tier === 'tier1' || tier === 'tier2' || tier === 'tier3' ? tier : null,
   };

@@ -21,7 +21,10 @@ export function completedEmail(args: {
         `Every observation granted to proposal ${reference} “${title || 'untitled'}” has now been observed: ${hours(observedHours)} obtained of the ${hours(grantedHours)} granted.`,
         'The proposal is marked completed. The observatory staff will tell you how to collect the data.',
       ],
-      action: { label: 'See the progress', url: `${base}/proposals/${encodeURIComponent(reference)}` },
+      action: {
+        label: 'See the progress',
+        url: `${base}/proposals/${encodeURIComponent(reference)}`,
+      },
     },
   };
 }

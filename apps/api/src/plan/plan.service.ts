@@ -156,7 +156,13 @@ export class PlanService {
          VALUES ($1, $2, $3, $4, $5)
          ON CONFLICT (call_id) DO UPDATE SET maintenance_start_hour = $2, maintenance_hours = $3,
            weather_reserve = $4, updated_at = $5`,
-        [call.id, dto.maintenanceStartHour, dto.maintenanceHours, dto.weatherReserve, this.clock.now()],
+        [
+          call.id,
+          dto.maintenanceStartHour,
+          dto.maintenanceHours,
+          dto.weatherReserve,
+          this.clock.now(),
+        ],
       );
       await this.audit.record(
         {
@@ -198,7 +204,12 @@ export class PlanService {
           ? {
               from: `${periods.map((p) => p.start).sort()[0]}T00:00:00Z`,
               to: new Date(
-                Date.parse(`${periods.map((p) => p.end).sort().at(-1)}T00:00:00Z`) + DAY_MS,
+                Date.parse(
+                  `${periods
+                    .map((p) => p.end)
+                    .sort()
+                    .at(-1)}T00:00:00Z`,
+                ) + DAY_MS,
               ).toISOString(),
             }
           : null;
@@ -210,7 +221,11 @@ export class PlanService {
             )
           : [];
         const busy = [
-          ...kept.map((r) => ({ observationId: r.observation.id, start: r.startsAt, end: r.endsAt })),
+          ...kept.map((r) => ({
+            observationId: r.observation.id,
+            start: r.startsAt,
+            end: r.endsAt,
+          })),
           ...others.map((r) => ({
             observationId: r.observation_id,
             start: r.starts_at.toISOString(),
@@ -219,7 +234,8 @@ export class PlanService {
         ];
         const covered = new Map<string, number>();
         for (const r of kept) {
-          const h = r.status === 'observed' ? (r.hoursObtained ?? 0) : r.status === 'lost' ? 0 : r.hours;
+          const h =
+            r.status === 'observed' ? (r.hoursObtained ?? 0) : r.status === 'lost' ? 0 : r.hours;
           covered.set(r.observation.id, (covered.get(r.observation.id) ?? 0) + h);
         }
         const planned: PlannedRun[] = [];
@@ -309,7 +325,12 @@ export class PlanService {
     m: EntityManager,
     callId: string,
     lock = false,
-  ): Promise<Pick<PlanSettings, 'maintenanceStartHour' | 'maintenanceHours' | 'weatherReserve' | 'unplaced' | 'generatedAt'>> {
+  ): Promise<
+    Pick<
+      PlanSettings,
+      'maintenanceStartHour' | 'maintenanceHours' | 'weatherReserve' | 'unplaced' | 'generatedAt'
+    >
+  > {
     const rows: Array<Record<string, unknown>> = await m.query(
       `SELECT maintenance_start_hour, maintenance_hours, weather_reserve, unplaced, generated_at
          FROM plans WHERE call_id = $1${lock ? ' FOR UPDATE' : ''}`,
@@ -350,7 +371,9 @@ export class PlanService {
         granted: round(granted.filter((g) => g.tier === tier).reduce((s, g) => s + g.hours, 0)),
         planned: round(mine.filter((r) => r.status !== 'lost').reduce((s, r) => s + r.hours, 0)),
         observed: round(
-          mine.filter((r) => r.status === 'observed').reduce((s, r) => s + (r.hoursObtained ?? 0), 0),
+          mine
+            .filter((r) => r.status === 'observed')
+            .reduce((s, r) => s + (r.hoursObtained ?? 0), 0),
         ),
       };
     });

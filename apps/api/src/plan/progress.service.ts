@@ -117,11 +117,19 @@ export class ProgressService {
         [user.id, tokenHash(token), now],
       );
       await this.audit.record(
-        { actorId: user.id, action: 'calendar_feed.rotated', subjectType: 'user', subjectId: user.id },
+        {
+          actorId: user.id,
+          action: 'calendar_feed.rotated',
+          subjectType: 'user',
+          subjectId: user.id,
+        },
         m,
       );
     });
-    return { url: `${this.config.publicUrl}/api/calendar/${token}.ics`, createdAt: now.toISOString() };
+    return {
+      url: `${this.config.publicUrl}/api/calendar/${token}.ics`,
+      createdAt: now.toISOString(),
+    };
   }
 
   /** The runs of the feed's owner; an unknown token is a 404 like any missing page. */

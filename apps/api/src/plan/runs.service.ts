@@ -98,7 +98,8 @@ export class RunsService {
         await this.audit.record(
           {
             actorId: user.id,
-            action: dto.status !== undefined ? 'run.recorded' : moving ? 'run.moved' : 'run.updated',
+            action:
+              dto.status !== undefined ? 'run.recorded' : moving ? 'run.moved' : 'run.updated',
             subjectType: 'run',
             subjectId: run.id,
             details: { reference: run.proposal.reference, ...changes },
@@ -207,7 +208,8 @@ export class RunsService {
     const r = rows[0];
     if (!r || Number(r.granted) <= 0) return;
     if (r.short === 0) {
-      const done: Array<{ reference: string; title: string }> = await m.query(
+      // An UPDATE through TypeORM's postgres driver answers [rows, affected].
+      const [done]: [Array<{ reference: string; title: string }>, number] = await m.query(
         `UPDATE proposals SET status = 'completed', completed_at = $2, version = version + 1, updated_at = $2
           WHERE id = $1 AND completed_at IS NULL RETURNING reference, title`,
         [proposalId, now],

@@ -12,7 +12,12 @@ import {
 } from 'class-validator';
 import { IsInstant } from '../../calls/dto/is-instant.validator.js';
 import { VersionDto } from '../../proposals/dto/version.dto.js';
-import { LOST_REASONS, type LostReason, RUN_STATUSES, type RunStatus } from '../entities/run.entity.js';
+import {
+  LOST_REASONS,
+  type LostReason,
+  RUN_STATUSES,
+  type RunStatus,
+} from '../entities/run.entity.js';
 
 /**
  * One change of a run: move it (both instants), lock or unlock it, or record it (observed with the
