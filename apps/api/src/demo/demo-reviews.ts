@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { hashPassword } from '../auth/password.js';
+import { AuditEvent } from '../audit/audit-event.entity.js';
 import { GrantedCallRole } from '../calls/entities/call-role.entity.js';
 import { Call } from '../calls/entities/call.entity.js';
 import { ReviewAssignment } from '../review/entities/review-assignment.entity.js';
@@ -27,10 +28,10 @@ const STAFF = 'staff@skyhours.test';
  */
 const POOL: [string, string, string, string, number][] = [
   ['Orla', 'Penhaligon', 'Brackenridge Radio Laboratory', 'IE', 0.2],
-  ['Mbali', 'Castellot', 'Pellucid Bay University', 'ZA', -1.9],
+  ['Mbali', 'Castellot', 'Pellucid Bay University', 'ZA', -2.2],
   ['Henrik', 'Solberg-Asante', 'Nordvik Space Physics Institute', 'NO', -0.3],
   ['Yara', 'Quintanilha', 'Laboratório de Radioastronomia de Serra Alvorada', 'BR', 0.3],
-  ['Kenji', 'Marlowe-Ito', 'Hoshikawa Institute for Astronomy', 'JP', 1.7],
+  ['Kenji', 'Marlowe-Ito', 'Hoshikawa Institute for Astronomy', 'JP', 2],
   ['Beatrix', 'Onwuachi', 'Ostmark Institute of Astronomy', 'AT', -0.2],
   ['Samir', 'Delacroix-Vance', 'Kaltenau University of Technology', 'DE', 0],
   ['Ruth', 'Abernethy-Kwon', 'Tamsin Hill College', 'US', 0.4],
@@ -164,6 +165,14 @@ export async function loadDemoReviews(manager: EntityManager, context: DemoConte
     );
     await assess(manager, g, call, proposals, staff.id);
     await review(manager, g, call, proposals, referees);
+    await manager.insert(AuditEvent, {
+      actorId: staff.id,
+      action: 'call.status_changed',
+      subjectType: 'call',
+      subjectId: call.id,
+      details: { code, from: 'closed', to: 'in_review' },
+      at: new Date(call.deadlineAt.getTime() + 2 * DAY),
+    });
   }
   await setExtendedPressure(manager);
 }
@@ -268,8 +277,11 @@ async function review(
       .filter((r) => call.code !== 'WN26' || r !== demo)
       .map((r) => ({ r, order: load.get(r.id)! + g.next() * 0.9 }))
       .sort((a, b) => a.order - b.order);
+    // The harsh and the lenient referee never share a proposal, so each one's bias shows.
+    const extreme = (r: Referee) => Math.abs(r.bias) > 1;
     for (const { r } of candidates) {
       if (chosen.length >= call.refereesPerProposal) break;
+      if (extreme(r) && chosen.some(extreme)) continue;
       chosen.push(r);
     }
     for (const r of chosen) load.set(r.id, load.get(r.id)! + 1);
@@ -341,18 +353,27 @@ function scoresFor(
   chosen: Referee[],
 ): number[] {
   const fixed = call.code === 'AU26' ? AU26_DISAGREEMENTS[number] : undefined;
-  if (fixed) return fixed.slice(0, chosen.length);
+  if (fixed) {
+    // The lowest of the fixed scores goes to the harshest of the chosen referees, and so on up.
+    const low = [...fixed].sort((a, b) => a - b);
+    const byBias = chosen.map((r, i) => ({ bias: r.bias, i })).sort((a, b) => a.bias - b.bias);
+    const scores: number[] = [];
+    byBias.forEach(({ i }, k) => (scores[i] = low[k]!));
+    return scores;
+  }
   const clamp = (s: number) => Math.max(call.scoreMin, Math.min(call.scoreMax, Math.round(s)));
-  const scores = chosen.map((r) => clamp(quality + r.bias + g.range(-0.8, 0.8)));
-  const limit = 0.15 * (call.scoreMax - call.scoreMin);
+  const scores = chosen.map((r) => clamp(quality + r.bias + g.range(-0.6, 0.6)));
+  const limit = 0.19 * (call.scoreMax - call.scoreMin);
   for (;;) {
     const mean = scores.reduce((a, b) => a + b, 0) / scores.length;
     const sd = Math.sqrt(scores.reduce((a, s) => a + (s - mean) ** 2, 0) / (scores.length - 1));
     if (scores.length < 2 || sd <= limit) return scores;
-    let far = 0;
-    scores.forEach((s, i) => {
-      if (Math.abs(s - mean) > Math.abs(scores[far]! - mean)) far = i;
-    });
+    // Move the score furthest from the others' mean one step in; the harsh or lenient referee
+    // keeps theirs, the others move towards it, so the bias stays visible.
+    const movable = chosen.map((r, i) => (Math.abs(r.bias) > 1 ? -1 : i)).filter((i) => i >= 0);
+    let far = movable[0]!;
+    for (const i of movable)
+      if (Math.abs(scores[i]! - mean) > Math.abs(scores[far]! - mean)) far = i;
     scores[far]! += scores[far]! > mean ? -1 : 1;
   }
 }
