@@ -150,7 +150,7 @@ describe('AU26, in deliberation', () => {
     const by = Object.fromEntries(verdicts.map((v) => [v.verdict, v.n]));
     expect(by.not_feasible).toBe(2);
     expect(by.feasible_with_changes).toBeGreaterThanOrEqual(3);
-    expect(by.feasible + by.feasible_with_changes + by.not_feasible).toBe(40);
+    expect((by.feasible ?? 0) + (by.feasible_with_changes ?? 0) + (by.not_feasible ?? 0)).toBe(40);
     const [{ grants }] = await db.query(
       `SELECT count(*)::int AS grants FROM proposal_grants g JOIN proposals p ON p.id = g.proposal_id
         WHERE p.call_id = $1`,
