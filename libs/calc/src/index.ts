@@ -18,3 +18,4 @@ export * from './validation.js';
 export * from './coordinates.js';
 export * from './scores.js';
 export * from './plan.js';
+export * from './assign.js';
