@@ -89,7 +89,8 @@ try {
       /** @type {number[]} */
       const latencies = [];
       const instance = autocannon(
-        { url, headers, connections: CONNECTIONS, duration: SECONDS },
+        // A long timeout: a slow answer is measured as slow, not dropped from the percentiles.
+        { url, headers, connections: CONNECTIONS, duration: SECONDS, timeout: 120 },
         (error, result) =>
           error
             ? reject(error)
@@ -99,10 +100,27 @@ try {
                 p95: percentile(latencies, 95),
                 p99: percentile(latencies, 99),
                 non2xx: result.non2xx + result.errors + result.timeouts,
+                count: latencies.length,
               }),
       );
       instance.on('response', (_client, _status, _bytes, ms) => latencies.push(ms));
     });
+
+  /** One request at a time, nothing else running: the floor under any latency. @param {string} url @param {Record<string, string>} headers */
+  const alone = async (url, headers) => {
+    const times = [];
+    for (let i = 0; i < (SMOKE ? 2 : 7); i++) {
+      const t0 = performance.now();
+      await (await fetch(url, { headers })).arrayBuffer();
+      times.push(performance.now() - t0);
+    }
+    return median(times.slice(1));
+  };
+  const aloneApi = await alone(apiUrl, session.headers);
+  const aloneBase = await alone(baselineUrl, {});
+  console.log(
+    `one request alone (median): API ${aloneApi.toFixed(0)} ms, baseline ${aloneBase.toFixed(0)} ms`,
+  );
 
   await load(apiUrl, session.headers); // warm-up (JIT, pools, caches), not counted
   /** @type {any[]} */
@@ -119,12 +137,13 @@ try {
     p95: median(runs.map((r) => r.p95)),
     p99: median(runs.map((r) => r.p99)),
     non2xx: runs.reduce((s, r) => s + r.non2xx, 0),
+    count: runs.reduce((s, r) => s + r.count, 0),
   });
   const a = summary(apiRuns);
   const b = summary(baseRuns);
   const ratio = a.rps / b.rps;
   const line = (/** @type {string} */ name, /** @type {any} */ s) =>
-    `${name.padEnd(9)} ${s.rps.toFixed(1).padStart(7)} req/s   p50 ${s.p50.toFixed(0)} ms   p95 ${s.p95.toFixed(0)} ms   p99 ${s.p99.toFixed(0)} ms   non-2xx ${s.non2xx}`;
+    `${name.padEnd(9)} ${s.rps.toFixed(1).padStart(7)} req/s   p50 ${s.p50.toFixed(0)} ms   p95 ${s.p95.toFixed(0)} ms   p99 ${s.p99.toFixed(0)} ms   (${s.count} answers, ${s.non2xx} failed)`;
   console.log(
     `standing of ${PROPOSALS} proposals × ${REVIEWERS} reviews (${(bytes / 1024).toFixed(0)} KB of JSON), ${CONNECTIONS} connections, ${ROUNDS} × ${SECONDS} s each (medians):`,
   );

@@ -22,6 +22,12 @@ const BENCHES = [
     file: 'standing-read.mjs',
     builds: ['@skyhours/calc', '@skyhours/mail-sink', '@skyhours/api'],
   },
+  // Goal: 300 × (2 MB upload + submit) in a minute, every one landing once; submit p95 < 2 s; API RSS < 1 GB.
+  {
+    name: 'deadline-rush',
+    file: 'deadline-rush.mjs',
+    builds: ['@skyhours/calc', '@skyhours/mail-sink', '@skyhours/api'],
+  },
 ];
 
 const args = process.argv.slice(2);

@@ -181,7 +181,7 @@ export async function makeProposals(ds, c, pis, status) {
       position: 1,
       name: `Source ${i + 1}`,
       raDeg: (i * 7.3) % 360,
-      decDeg: -30 + ((i * 13) % 80),
+      decDeg: 10 + ((i * 13) % 50),
       extentArcsec: 0,
       fluxDensityMJy: null,
       lineRestGHz: null,
