@@ -16,6 +16,18 @@ const BENCHES = [
   { name: 'calc', file: 'calc.mjs', builds: ['@skyhours/calc'] },
   { name: 'compiled-pdf', file: 'compiled-pdf.mjs', builds: ['@skyhours/calc', '@skyhours/api'] },
   { name: 'web-bundle', file: 'web-bundle.mjs', builds: ['@skyhours/calc', '@skyhours/web'] },
+  // Goal: API ≥ 0.5 × a bare http + pg baseline in req/s, p95 < 100 ms (1,000 × 5 reviews, 50 connections).
+  {
+    name: 'standing-read',
+    file: 'standing-read.mjs',
+    builds: ['@skyhours/calc', '@skyhours/mail-sink', '@skyhours/api'],
+  },
+  // Goal: 300 × (2 MB upload + submit) in a minute, every one landing once; submit p95 < 2 s; API RSS < 1 GB.
+  {
+    name: 'deadline-rush',
+    file: 'deadline-rush.mjs',
+    builds: ['@skyhours/calc', '@skyhours/mail-sink', '@skyhours/api'],
+  },
 ];
 
 const args = process.argv.slice(2);

@@ -28,6 +28,7 @@ const SUITES = [
   'web',
   'bench',
   'api-e2e',
+  'faults',
   'browser',
 ];
 const argv = process.argv.slice(2);
@@ -146,7 +147,7 @@ try {
 
   const needsServices = ['api-e2e', 'browser'].some(wanted);
   const needsBuild =
-    needsServices || ['calc', 'mail-sink', 'api-unit', 'web', 'bench'].some(wanted);
+    needsServices || ['calc', 'mail-sink', 'api-unit', 'web', 'bench', 'faults'].some(wanted);
   if (needsBuild) await ensureBuilt();
 
   await suite('calc', vitest('libs/calc/vitest.config.ts'));
@@ -158,6 +159,12 @@ try {
   await suite('web', vitest('apps/web/vitest.config.ts'));
   // A short run of every benchmark, proving each still runs (its figures mean nothing).
   await check('bench', ['node', 'scripts/bench.mjs', '--smoke', '--no-build']);
+
+  // Fault tests start (and stop, restart, kill) PostgreSQL, mail sink and API processes of their own.
+  await suite('faults', jest('apps/api/test/faults/jest-faults.config.cjs', ['--runInBand']), {
+    ...process.env,
+    NODE_OPTIONS: '--experimental-vm-modules',
+  });
 
   if (needsServices && !interrupted) {
     banner('services');

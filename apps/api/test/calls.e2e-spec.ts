@@ -4,6 +4,7 @@ import { CallDeadlineJob } from '../src/calls/call-deadline.job.js';
 import { CallSubscribers } from '../src/calls/call-subscribers.js';
 import { assertOpenForSubmission, CallsService } from '../src/calls/calls.service.js';
 import { Call } from '../src/calls/entities/call.entity.js';
+import { GrantedCallRole } from '../src/calls/entities/call-role.entity.js';
 import { createTestApp, type TestAgent, type TestApp } from './support/app.js';
 import {
   makeCall,
@@ -175,11 +176,31 @@ describe('calls', () => {
       const after = await t.agent().get(`/api/calls/${code}`);
       expect(after.body).toMatchObject({ status: 'closed', nextStatus: 'in_review' });
 
-      for (const to of ['in_review', 'deliberation', 'published', 'archived']) {
+      for (const to of ['in_review', 'deliberation']) {
         const res = await move(code, to);
         expect(res.status).toBe(200);
         expect(res.body.status).toBe(to);
       }
+      // Publishing sends the outcomes: only the call's chair does it, from the standing.
+      const direct = await move(code, 'published');
+      expect(direct.status).toBe(409);
+      expect(direct.body.code).toBe('CALL_PUBLISHED_BY_CHAIR');
+      const chair = await makeUser(t.dataSource);
+      const call = await t.dataSource.getRepository(Call).findOneByOrFail({ code });
+      await t.dataSource.manager.insert(GrantedCallRole, {
+        userId: chair.id,
+        callId: call.id,
+        role: 'chair',
+        grantedAt: new Date(),
+      });
+      const chairAgent = t.agent();
+      expect((await chairAgent.signIn(chair.email, TEST_PASSWORD)).status).toBe(200);
+      const published = await chairAgent.post(`/api/calls/${code}/publish`, {});
+      expect(published.status).toBe(200);
+      expect(published.body.status).toBe('published');
+      const archived = await move(code, 'archived');
+      expect(archived.status).toBe(200);
+      expect(archived.body.status).toBe('archived');
       const events = await t.dataSource.getRepository(AuditEvent).find({
         where: { action: 'call.status_changed', subjectType: 'call' },
         order: { id: 'ASC' },

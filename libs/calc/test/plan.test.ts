@@ -203,4 +203,70 @@ describe('generatePlan', () => {
     expect(runs).toEqual([]);
     expect(unplaced).toEqual([{ observationId: 'south', hoursUnplaced: 2, reason: 'never_rises' }]);
   });
+
+  // Zones far from UTC and with odd offsets (UTC+14, UTC−11, UTC+5:45, UTC−3:30 with DST): the
+  // local maintenance hours are read back with Intl per 5-minute slot, independent of the
+  // generator's own offset arithmetic (zone offsets from the IANA database, through Intl).
+  it.each(['Pacific/Kiritimati', 'Pacific/Pago_Pago', 'Asia/Kathmandu', 'America/St_Johns'])(
+    'keeps the maintenance window in local time for %s, across a DST change where there is one',
+    (timeZone) => {
+      const input: PlanInput = {
+        periodStart: '2031-03-05',
+        periodEnd: '2031-03-14',
+        site: { ...SITE, timeZone },
+        observations: Array.from({ length: 6 }, (_, i) => ({
+          id: `z${i}`,
+          raDeg: i * 60,
+          decDeg: 20,
+          hours: 20,
+          tier: 'tier1' as const,
+          rank: i + 1,
+        })),
+        maintenanceStartHour: 22,
+        maintenanceHours: 5,
+        weatherReserve: 0,
+      };
+      const fmt = new Intl.DateTimeFormat('en-GB', {
+        timeZone,
+        hourCycle: 'h23',
+        hour: '2-digit',
+        minute: '2-digit',
+      });
+      const hourAt = (t: number) => {
+        const parts = fmt.formatToParts(new Date(t));
+        const get = (k: string) => Number(parts.find((p) => p.type === k)!.value);
+        return get('hour') + get('minute') / 60;
+      };
+      const { runs } = generatePlan(input);
+      expect(runs.length).toBeGreaterThan(0);
+      for (const run of runs)
+        for (let t = ms(run.start); t < ms(run.end); t += 300_000) {
+          const h = hourAt(t);
+          expect({
+            run: run.start,
+            at: new Date(t).toISOString(),
+            inWindow: h >= 22 || h < 3,
+          }).toEqual({ run: run.start, at: new Date(t).toISOString(), inWindow: false });
+        }
+    },
+  );
+
+  it('plans a never-setting target in runs of at most a day, one per UTC day, to its hours', () => {
+    const { runs, unplaced } = generatePlan({
+      periodStart: '2031-05-01',
+      periodEnd: '2031-05-04',
+      site: SITE,
+      // δ = +80° at φ = +47.3° stays above 15° all day: its lowest elevation, at lower
+      // culmination, is φ + δ − 90° = 37.3° (the textbook circumpolar condition).
+      observations: [{ id: 'polar', raDeg: 30, decDeg: 80, hours: 30, tier: 'tier1', rank: 1 }],
+      maintenanceStartHour: 8,
+      maintenanceHours: 0,
+      weatherReserve: 0,
+    });
+    expect(unplaced).toEqual([]);
+    expect(runs.reduce((s, r) => s + r.hours, 0)).toBeCloseTo(30, 9);
+    for (const r of runs) expect(r.hours).toBeLessThanOrEqual(24);
+    const days = runs.map((r) => r.start.slice(0, 10));
+    expect(new Set(days).size).toBe(days.length);
+  });
 });

@@ -69,7 +69,6 @@ describe('lifecycle moves', () => {
       ['planned', 'open'],
       ['closed', 'in_review'],
       ['in_review', 'deliberation'],
-      ['deliberation', 'published'],
       ['published', 'archived'],
     ];
     for (const [from, to] of allowed) {
@@ -77,6 +76,13 @@ describe('lifecycle moves', () => {
       expect(refuseTransition(call(from), to, offered, now)).toBeNull();
     }
     expect(nextStatus('archived')).toBeNull();
+  });
+
+  it('leaves publishing to the chair’s publish, which sends the outcomes', () => {
+    expect(nextStatus('deliberation')).toBe('published');
+    expect(refuseTransition(call('deliberation'), 'published', offered, now)?.code).toBe(
+      'CALL_PUBLISHED_BY_CHAIR',
+    );
   });
 
   it('refuses moving back, skipping forward and staying put, with a reason', () => {

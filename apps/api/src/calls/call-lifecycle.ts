@@ -90,7 +90,8 @@ export interface TransitionFacts {
 /**
  * Why the call may not move from its effective status to `to`, or null when it may. Moves go one
  * step forward only; opening needs a future deadline and hours on offer; closing happens at the
- * deadline, not before.
+ * deadline, not before; publishing only through the allocation module's publish, which sets the
+ * outcomes and sends them.
  */
 export function refuseTransition(
   call: CallTimes,
@@ -128,6 +129,11 @@ export function refuseTransition(
         message: `Call ${call.code} cannot open: no configuration has hours on offer`,
       };
   }
+  if (to === 'published')
+    return {
+      code: 'CALL_PUBLISHED_BY_CHAIR',
+      message: `Call ${call.code} is published by its chair from the standing (POST /api/calls/${call.code}/publish), which sends the outcomes`,
+    };
   if (to === 'closed')
     return {
       code: 'CALL_DEADLINE_NOT_REACHED',

@@ -29,7 +29,10 @@ interface DemoCall {
 const CHAIR = 'chair@skyhours.test';
 const REFEREE = 'referee@skyhours.test';
 
-/** The scenario's calls: one open now, one in deliberation, one archived, one being planned. */
+/**
+ * The scenario's calls: one open now, a short one in review, one in deliberation, one archived,
+ * one being planned.
+ */
 const CALLS: DemoCall[] = [
   {
     code: 'SP27',
@@ -43,6 +46,23 @@ const CALLS: DemoCall[] = [
     hours: { compact: 350, intermediate: 300, extended: 420 },
     proposalKinds: ['standard', 'large', 'target_of_opportunity'],
     anonymousReview: true,
+    roles: [
+      { email: CHAIR, role: 'chair' },
+      { email: REFEREE, role: 'referee' },
+    ],
+  },
+  {
+    code: 'WN26',
+    title: 'Winter 2026 short call',
+    description:
+      'A short call for the last weeks of the intermediate configuration: standard proposals and targets of opportunity. Referees are reviewing the proposals now.',
+    status: 'in_review',
+    opensInDays: -45,
+    deadlineInDays: -12,
+    reviewDueInDays: 5,
+    hours: { intermediate: 90 },
+    proposalKinds: ['standard', 'target_of_opportunity'],
+    anonymousReview: false,
     roles: [
       { email: CHAIR, role: 'chair' },
       { email: REFEREE, role: 'referee' },
@@ -73,10 +93,14 @@ const CALLS: DemoCall[] = [
     opensInDays: -320,
     deadlineInDays: -260,
     reviewDueInDays: -225,
-    hours: { compact: 300, intermediate: 300, extended: 300 },
+    // Its semester ran in the intermediate configuration, now drawing to a close.
+    hours: { intermediate: 300 },
     proposalKinds: ['standard', 'large'],
     anonymousReview: false,
-    roles: [{ email: REFEREE, role: 'referee' }],
+    roles: [
+      { email: CHAIR, role: 'chair' },
+      { email: REFEREE, role: 'referee' },
+    ],
   },
   {
     code: 'AU27',

@@ -33,10 +33,12 @@ import { DEMO_OBSERVATORY } from './demo-observatory.js';
 
 const DAY = 86_400_000;
 const PROPOSER = 'proposer@skyhours.test';
+/** The SP26 proposal the demo proposer leads (allocated, partly observed). */
+export const SP26_PROPOSER_NUMBER = 4;
 /** HI rest frequency, Hellwig et al. 1970 (SCIENCE.md). */
 const HI_GHZ = 1.420405751768;
 
-const INSTITUTES = [
+export const INSTITUTES = [
   { name: 'Harrowgate Institute for Radio Studies', country: 'GB', domain: 'harrowgate.example' },
   {
     name: 'Department of Physics, University of North Ambervale',
@@ -139,7 +141,7 @@ const PEOPLE: [string, string, number][] = [
 ];
 
 /** A small deterministic generator (mulberry32) with a fixed start, so loads are repeatable. */
-function generator(start: number) {
+export function generator(start: number) {
   let a = start >>> 0;
   const next = () => {
     a = (a + 0x6d2b79f5) >>> 0;
@@ -155,7 +157,7 @@ function generator(start: number) {
     range: (min: number, max: number) => min + next() * (max - min),
   };
 }
-type Generator = ReturnType<typeof generator>;
+export type Generator = ReturnType<typeof generator>;
 
 /** Titles per science category, with an invented object to fill in. */
 const TITLES: Record<(typeof SCIENCE_CATEGORIES)[number], string[]> = {
@@ -404,6 +406,38 @@ export async function loadDemoProposals(
   }
   // The demo proposer is on one of them as a Co-I, so the outcome can reach them later.
   plans[plans.length - 5]!.cois.push({ person: me, canEdit: false });
+
+  // WN26, in review: a short call's eight, submitted before its deadline.
+  const wn26 = await manager.findOneByOrFail(Call, { code: 'WN26' });
+  for (let i = 1; i <= 8; i++)
+    plans.push(
+      plan(wn26, i, {
+        status: 'under_review',
+        submittedAt: new Date(wn26.deadlineAt.getTime() - g.range(0.2, 6) * DAY),
+        kind: g.next() < 0.25 ? 'target_of_opportunity' : 'standard',
+      }),
+    );
+
+  // SP26, archived: twelve submitted, all in the intermediate configuration its semester used;
+  // the outcomes section (demo-archive.ts) gives them their grants, statuses and runs.
+  const sp26 = await manager.findOneByOrFail(Call, { code: 'SP26' });
+  const intermediate = records.configurations.find((c) => c.name === 'intermediate')!;
+  for (let i = 1; i <= 12; i++) {
+    const p = plan(sp26, i, {
+      status: 'under_review',
+      submittedAt: new Date(sp26.deadlineAt.getTime() - g.range(0.2, 10) * DAY),
+      kind: g.next() < 0.8 ? 'standard' : 'large',
+      ...(i === SP26_PROPOSER_NUMBER
+        ? {
+            pi: me,
+            title: 'Radio flares of the active binary LVA V0388',
+            category: 'Stars and stellar remnants',
+          }
+        : {}),
+    });
+    for (const o of p.observations) o.configuration = intermediate;
+    plans.push(p);
+  }
 
   const ids = await saveProposals(manager, plans, records, g);
   await manager.query(

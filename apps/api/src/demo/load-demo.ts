@@ -1,14 +1,23 @@
 import type { DataSource } from 'typeorm';
+import { loadDemoArchive } from './demo-archive.js';
 import { loadDemoCalls } from './demo-calls.js';
 import type { DemoContext } from './demo-context.js';
 import { loadDemoObservatory } from './demo-observatory.js';
 import { loadDemoProposals } from './demo-proposals.js';
+import { loadDemoReviews } from './demo-reviews.js';
 import { loadDemoUsers } from './demo-users.js';
 
 export const DEMO_MARKER = 'demo_loaded_at';
 
 /** The demo's sections, in order; each feature adds its own. */
-const SECTIONS = [loadDemoUsers, loadDemoObservatory, loadDemoCalls, loadDemoProposals];
+const SECTIONS = [
+  loadDemoUsers,
+  loadDemoObservatory,
+  loadDemoCalls,
+  loadDemoProposals,
+  loadDemoReviews,
+  loadDemoArchive,
+];
 
 export async function loadDemo(
   dataSource: DataSource,

@@ -41,7 +41,14 @@ export class ScienceCaseUploadInterceptor implements NestInterceptor {
 }
 
 function refusal(error: unknown, limitMb: number): unknown {
-  if (!(error instanceof multer.MulterError)) return error;
+  if (error instanceof AppError) return error;
+  if (!(error instanceof multer.MulterError)) {
+    // busboy's own errors (a malformed part header, e.g. a NUL in the file name; a body that
+    // ends early) are plain Errors: the client sent a body that is not multipart, not a fault
+    // of ours.
+    const message = 'The upload could not be read as multipart form data.';
+    return new AppError(HttpStatus.BAD_REQUEST, 'BAD_UPLOAD', message, [{ path: 'file', message }]);
+  }
   const field = error.field ?? 'file';
   switch (error.code) {
     case 'LIMIT_FILE_SIZE': {
