@@ -11,7 +11,6 @@ import {
   makeCallInReview,
 } from './support/review-factories.js';
 
-const DAY = 86_400_000;
 
 /** A binary answer's bytes (supertest buffers application/pdf this way). */
 const binary = (agent: TestAgent, path: string) =>
