@@ -11,7 +11,6 @@ import {
   makeCallInReview,
 } from './support/review-factories.js';
 
-
 /** A binary answer's bytes (supertest buffers application/pdf this way). */
 const binary = (agent: TestAgent, path: string) =>
   agent.http
