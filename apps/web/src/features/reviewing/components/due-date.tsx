@@ -13,7 +13,7 @@ export function DueDate({ at, now }: { at: string; now: Date }) {
         </time>
       </Text>
       <Text fontSize="xs" color="fg.muted">
-        {ahead ? local : utc}
+        {ahead ? `${local} · ${utc}` : utc}
       </Text>
     </Stack>
   );
