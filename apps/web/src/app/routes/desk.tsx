@@ -1,6 +1,18 @@
 import { Button, Card, Heading, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink, useLocation } from 'react-router-dom';
+import { Inbox } from 'lucide-react';
+import { EmptyState } from '@/components/ui/empty-state';
+import { LoadError } from '@/components/ui/load-error';
+import { BlockLoader } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
+import {
+  AdminSection,
+  ChairSection,
+  ProposerSection,
+  RefereeSection,
+  StaffSection,
+} from '@/features/desk/components/desk-sections';
+import { useDesk, useNow } from '@/features/desk/hooks';
 import { healthQueryOptions } from '@/features/health/api';
 import { HealthPanel } from '@/features/health/components/health-panel';
 import type { Session } from '@/features/session/api';
@@ -40,21 +52,40 @@ function Welcome() {
 }
 
 function Greeting({ session }: { session: Session }) {
+  const desk = useDesk(true);
+  const now = useNow();
+  const data = desk.data;
+  const empty =
+    data && !data.proposer && !data.referee && !data.chair && !data.staff && !data.admin;
   return (
-    <Card.Root variant="subtle" as="section" aria-labelledby="greeting-heading">
-      <Card.Body>
-        <Heading as="h2" size="lg" id="greeting-heading">
-          Welcome back, {session.name}
-        </Heading>
-        <Text color="fg.muted" mt="2">
-          What waits for you will be listed here.
-        </Text>
-      </Card.Body>
-    </Card.Root>
+    <Stack gap="6">
+      <Heading as="h2" size="lg" id="greeting-heading">
+        Welcome back, {session.name}
+      </Heading>
+      {desk.isPending ? (
+        <BlockLoader label="Loading your Desk" />
+      ) : desk.isError ? (
+        <LoadError error={desk.error} what="your Desk" onRetry={() => void desk.refetch()} />
+      ) : empty ? (
+        <EmptyState
+          icon={Inbox}
+          title="Nothing waits for you"
+          description="Verify your e-mail address to write proposals; roles in a call appear here once granted."
+        />
+      ) : (
+        <>
+          {data?.chair && <ChairSection desk={data.chair} now={now} />}
+          {data?.referee && <RefereeSection desk={data.referee} now={now} />}
+          {data?.staff && <StaffSection desk={data.staff} now={now} />}
+          {data?.admin && <AdminSection desk={data.admin} />}
+          {data?.proposer && <ProposerSection desk={data.proposer} now={now} />}
+        </>
+      )}
+    </Stack>
   );
 }
 
-/** Each role's start page: for now a welcome and the system's status. */
+/** Each role's start page: what waits for the signed-in user, by role, and the system's status. */
 function DeskPage() {
   const { session, isPending } = useSession();
   return (
