@@ -10,7 +10,7 @@ import { observationOf, POINT_TARGET } from '../../support/proposal-factories.js
 import type { Answer, HttpAgent } from './client.js';
 
 /**
- * `count` verified users, each the PI of a draft in `call`, written in a few bulk statements
+ * `count` verified users, each the PI of a proposal (a draft unless `status` says otherwise) in `call`, written in a few bulk statements
  * (so a test can have hundreds of them in a second). Answers their addresses.
  */
 export async function draftsWithPis(
@@ -18,6 +18,7 @@ export async function draftsWithPis(
   call: Call,
   count: number,
   firstNumber = 1,
+  status: 'draft' | 'submitted' = 'draft',
 ): Promise<{ emails: string[]; references: string[] }> {
   const passwordHash = await hashPassword(TEST_PASSWORD);
   const users = Array.from({ length: count }, (_, i) => ({
@@ -39,7 +40,7 @@ export async function draftsWithPis(
     abstract: '',
     scienceCategory: 'Nearby galaxies',
     kind: 'standard' as const,
-    status: 'draft' as const,
+    status,
     version: 1,
     createdById: userIds[i]!.id as string,
   }));
