@@ -189,7 +189,7 @@ describe('allocation: the standing', () => {
     );
     const sum = (k: 'tier1' | 'tier2' | 'tier3') =>
       pressure.bins.reduce(
-        (s: number, b: { granted: Record<string, number> }) => s + b.granted[k],
+        (s: number, b: { granted: Record<string, number> }) => s + (b.granted[k] ?? 0),
         0,
       );
     expect(sum('tier1')).toBeCloseTo(6, 4);

@@ -343,9 +343,9 @@ class Report {
     this.section('Ranked list');
     const columns: Column[] = [
       { header: 'Rank', width: 28, align: 'right' },
-      { header: 'Reference', width: 64, mono: true },
-      { header: 'Title', width: 150 },
-      { header: 'PI', width: 92 },
+      { header: 'Reference', width: 84, mono: true },
+      { header: 'Title', width: 140 },
+      { header: 'PI', width: 86 },
       { header: 'Reviews', width: 40, align: 'right' },
       { header: 'Raw mean', width: 42, align: 'right' },
       { header: 'Normalised', width: 48, align: 'right' },
@@ -354,7 +354,7 @@ class Report {
       { header: 'Asked h', width: 40, align: 'right' },
       { header: 'Granted h', width: 44, align: 'right' },
       { header: 'Tier', width: 56 },
-      { header: 'Cumulative h', width: WIDTH - 712, align: 'right' },
+      { header: 'Cumulative h', width: WIDTH - 716, align: 'right' },
     ];
     const rows = s.rows.map((r) => this.rankedCells(r));
     this.table(columns, rows, 'Ranked list, continued');
