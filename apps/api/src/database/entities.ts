@@ -18,6 +18,7 @@ import { Proposal } from '../proposals/entities/proposal.entity.js';
 import { User } from '../users/entities/user.entity.js';
 import { allocationEntities } from '../allocation/entities/index.js';
 import { planEntities } from '../plan/entities/index.js';
+import { TechnicalAssessment } from '../assessments/entities/technical-assessment.entity.js';
 import { reviewEntities } from '../review/entities/index.js';
 
 /** Every entity, listed once; a feature module adds its entities here and to its forFeature(). */
@@ -40,6 +41,7 @@ export const entities = [
   ProposalTarget,
   ProposalObservation,
   ProposalVersion,
+  TechnicalAssessment,
   ...reviewEntities,
   ...allocationEntities,
   ...planEntities,
