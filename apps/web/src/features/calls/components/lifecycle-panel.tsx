@@ -1,8 +1,10 @@
-import { Box, Button, Card, Flex, Heading, HStack, Stack, Text } from '@chakra-ui/react';
+import { Box, Button, Card, Flex, Heading, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { Check } from 'lucide-react';
 import { useState } from 'react';
+import { Link as RouterLink } from 'react-router-dom';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { toaster } from '@/components/ui/toaster';
+import { standingHref } from '@/lib/paths';
 import { formatLocalAndUtc } from '@/lib/time';
 import { type Call, CALL_STATUSES, type CallStatus } from '../api';
 import { useTransitionCall } from '../hooks';
@@ -79,6 +81,14 @@ export function LifecyclePanel({ call }: { call: Call }) {
             <Text>
               The call closes by itself at its deadline; move the deadline to close it sooner.
             </Text>
+          ) : next === 'published' ? (
+            <Text>
+              The call&apos;s chair publishes the outcomes from the{' '}
+              <Link asChild color="brand.fg" textDecoration="underline">
+                <RouterLink to={standingHref(call.code)}>standing</RouterLink>
+              </Link>
+              , after deciding every proposal.
+            </Text>
           ) : next ? (
             <HStack>
               <Button
@@ -95,7 +105,7 @@ export function LifecyclePanel({ call }: { call: Call }) {
           )}
         </Stack>
       </Card.Body>
-      {next && next !== 'closed' && (
+      {next && next !== 'closed' && next !== 'published' && (
         <ConfirmDialog
           open={open}
           onOpenChange={setOpen}
